@@ -1,0 +1,29 @@
+/**
+ * The engine commands the worker and the main-thread fallback both run: thin, synchronous wrappers
+ * over shared/rf (the same pure code everywhere). The worker file only routes calls to these.
+ */
+import type { Design } from '../../../../shared/rf/design';
+import type { AnalysisResult, ImpedancePath, MatchResult, RefineResult, YieldResult } from './engine-types';
+
+export interface EngineCore {
+  analyze(design: Design): { result: AnalysisResult; path: ImpedancePath };
+  findMatches(design: Design, opts?: object): MatchResult;
+  refine(design: Design, onProgress: (p: { iteration: number; worst: number }) => void, shouldStop: () => boolean): RefineResult;
+  yieldRun(
+    design: Design,
+    opts: { trials: number; seed: number },
+    onProgress: (done: number) => void,
+    shouldStop: () => boolean,
+  ): YieldResult;
+}
+
+const notYet = (what: string): never => {
+  throw new Error(`The ${what} is not available in this build yet.`);
+};
+
+export const engineCore: EngineCore = {
+  analyze: () => notYet('analysis engine'),
+  findMatches: () => notYet('match finder'),
+  refine: () => notYet('refine'),
+  yieldRun: () => notYet('yield run'),
+};
