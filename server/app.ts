@@ -1,0 +1,103 @@
+/**
+ * The Express application: security headers, request logs, the JSON API under /api, and the built
+ * client. Everything it needs is passed in (no module globals, no process.env).
+ */
+import express from 'express';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Knex } from 'knex';
+import type { Config } from './config';
+import type { Logger } from './logger';
+import type { Role, TokenService } from './auth/tokens';
+import type { PasswordHasher } from './auth/passwords';
+import { sessionMiddleware } from './auth/session';
+import { originCheck } from './auth/origin';
+import { apiNotFound, errorHandler } from './errors';
+import { healthRoutes } from './routes/health';
+import { authRoutes } from './routes/auth';
+import { roomRoutes } from './routes/rooms';
+import { memberRoutes } from './routes/members';
+import { snapshotRoutes } from './routes/snapshots';
+import { clientRoutes } from './static';
+
+/** The part of the collab hub that routes call when rooms change. */
+export interface RoomEvents {
+  roleChanged(roomId: string, userId: string, role: Role | null): void;
+  roomDeleted(roomId: string): void;
+  emit(roomId: string, event: string, payload: unknown): void;
+}
+
+export interface AppDeps {
+  config: Config;
+  knex: Knex;
+  tokens: TokenService;
+  logger: Logger;
+  passwords: PasswordHasher;
+  events: RoomEvents;
+  /** true once migrated and listening, false again while shutting down. */
+  isReady: () => boolean;
+  /** the built client to serve, or null for the API only. */
+  clientDir: string | null;
+}
+
+/** Largest JSON body: a design with an embedded Touchstone measurement fits comfortably. */
+export const JSON_BODY_LIMIT = '2mb';
+
+export function createApp(deps: AppDeps): express.Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'worker-src': ["'self'", 'blob:'],
+          'connect-src': ["'self'", 'ws:', 'wss:'],
+          'upgrade-insecure-requests': deps.config.nodeEnv === 'production' ? [] : null,
+        },
+      },
+      // The app is same-origin only; no need to open it to cross-origin embedding.
+      crossOriginEmbedderPolicy: false,
+      strictTransportSecurity: deps.config.nodeEnv === 'production',
+    }),
+  );
+
+  app.use(
+    pinoHttp({
+      logger: deps.logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'info' : 'debug'),
+      serializers: {
+        req: (req: { method: string; url: string; id: unknown }) => ({ id: req.id, method: req.method, url: req.url }),
+      },
+    }),
+  );
+
+  const api = express.Router();
+  api.use(healthRoutes(deps.isReady));
+  api.use(express.json({ limit: JSON_BODY_LIMIT }));
+  api.use(cookieParser());
+  api.use(originCheck(deps.config.publicUrl));
+  api.use(sessionMiddleware(deps));
+  api.use(authRoutes(deps));
+  api.use(roomRoutes(deps));
+  api.use(memberRoutes(deps));
+  api.use(snapshotRoutes(deps));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  const client = deps.clientDir ? clientRoutes(deps.clientDir) : null;
+  if (client) app.use(client);
+
+  app.use((_req, res) => {
+    res.status(404).json({ error: { code: 'not-found', message: 'Not found.' } });
+  });
+  app.use(errorHandler(deps.logger));
+  return app;
+}

@@ -1,0 +1,101 @@
+/**
+ * Start everything on one http server: migrate, seed (unless SEED_DEMO=0), the API, the built client,
+ * the room socket and socket.io. Used by start.ts, dev mode, the API tests and the browser tests.
+ */
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Knex } from 'knex';
+import type { Config } from './config';
+import { createLogger, type Logger } from './logger';
+import { createKnex, migrateLatest } from './db';
+import { createTokenService } from './auth/tokens';
+import { createPasswordHasher } from './auth/passwords';
+import { createApp } from './app';
+import { DEFAULT_CLIENT_DIR } from './static';
+import { createCollabHub } from './collab/index';
+import { seedDemo } from '../db/seeds/demo';
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  httpServer: http.Server;
+  knex: Knex;
+  close(): Promise<void>;
+}
+
+export interface StartOptions {
+  logger?: Logger;
+  /** the built client to serve; default dist/client when it has an index.html; null for the API only. */
+  clientDir?: string | null;
+}
+
+/** How long open connections may take to finish before they are cut at shutdown. */
+const CLOSE_GRACE_MS = 5000;
+
+export async function startServer(config: Config, options: StartOptions = {}): Promise<RunningServer> {
+  const logger = options.logger ?? createLogger(config);
+  const knex = createKnex(config.databaseFile);
+  let ready = false;
+  try {
+    const applied = await migrateLatest(knex);
+    if (applied.length) logger.info({ applied }, 'database migrated');
+    if (config.seedDemo) {
+      const { created } = await seedDemo(knex, { bcryptCost: config.bcryptCost });
+      if (created) logger.info('demo rooms and accounts created');
+    }
+  } catch (e) {
+    await knex.destroy();
+    throw e;
+  }
+
+  const tokens = createTokenService(config.jwtSecret);
+  const hub = createCollabHub({ knex, tokens, logger, config });
+  const app = createApp({
+    config,
+    knex,
+    tokens,
+    logger,
+    passwords: createPasswordHasher(config.bcryptCost),
+    events: hub,
+    isReady: () => ready,
+    clientDir: options.clientDir === undefined ? DEFAULT_CLIENT_DIR : options.clientDir,
+  });
+  const httpServer = http.createServer(app);
+  hub.attach(httpServer);
+
+  try {
+    await new Promise<void>((resolve, reject) => {
+      httpServer.once('error', reject);
+      httpServer.listen(config.port, config.host, () => {
+        httpServer.off('error', reject);
+        resolve();
+      });
+    });
+  } catch (e) {
+    await hub.close().catch(() => undefined);
+    await knex.destroy();
+    throw e;
+  }
+  ready = true;
+  const port = (httpServer.address() as AddressInfo).port;
+  const shownHost = config.host === '0.0.0.0' || config.host === '::' ? 'localhost' : config.host;
+  const url = `http://${shownHost.includes(':') ? `[${shownHost}]` : shownHost}:${port}`;
+  logger.info({ url }, 'matchloom listening');
+
+  let closing: Promise<void> | undefined;
+  const close = () =>
+    (closing ??= (async () => {
+      ready = false;
+      const closed = new Promise<void>((resolve) => httpServer.close(() => resolve()));
+      httpServer.closeIdleConnections();
+      await hub.close().catch((err) => logger.warn({ err }, 'collab hub did not close cleanly'));
+      const timer = setTimeout(() => httpServer.closeAllConnections(), CLOSE_GRACE_MS);
+      timer.unref();
+      await closed;
+      clearTimeout(timer);
+      await knex.destroy();
+      logger.info('matchloom stopped');
+    })());
+
+  return { url, port, httpServer, knex, close };
+}
