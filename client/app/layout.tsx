@@ -1,0 +1,63 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { Suspense } from 'react';
+import { Link, Navigate, Outlet, redirect, useLocation, useNavigate, type LoaderFunctionArgs } from 'react-router-dom';
+import { Button } from '../components/button';
+import { Loading } from '../components/page-status';
+import { Wordmark } from '../components/wordmark';
+import { paths } from '../config/paths';
+import { meQueryOptions, useMe } from '../features/auth/api/get-me';
+import { useSignOut } from '../features/auth/api/sign-out';
+
+const hereOf = (url: URL) => `${url.pathname}${url.search}`;
+
+/** Signed-out visitors go to sign in, and come back here afterwards. */
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (!me) throw redirect(paths.auth.signIn.getHref(hereOf(new URL(request.url))));
+    return null;
+  };
+
+function AppBar({ displayName }: { displayName: string }) {
+  const navigate = useNavigate();
+  const signOut = useSignOut({ onSuccess: () => navigate(paths.auth.signIn.getHref(), { replace: true }) });
+  return (
+    <header className="border-b border-rule bg-card/80 backdrop-blur">
+      <div className="mx-auto flex max-w-6xl items-center justify-between gap-4 px-4 py-2.5">
+        <Link to={paths.rooms.getHref()} className="rounded-md text-ink" aria-label="Matchloom, your rooms">
+          <Wordmark />
+        </Link>
+        <nav aria-label="Account" className="flex items-center gap-3">
+          <span className="hidden text-sm text-ink-soft sm:inline">
+            Signed in as <strong className="font-bold text-ink">{displayName}</strong>
+          </span>
+          <Button variant="secondary" size="sm" busy={signOut.isPending} busyLabel="Signing out…" onClick={() => signOut.mutate()}>
+            Sign out
+          </Button>
+        </nav>
+      </div>
+    </header>
+  );
+}
+
+/** The signed-in frame: the app bar, then the page. */
+export default function AppLayout() {
+  const { data: me } = useMe();
+  const location = useLocation();
+  // The session can end while the app is open (signed out elsewhere, expired): ask to sign in again.
+  if (me === null) return <Navigate to={paths.auth.signIn.getHref(`${location.pathname}${location.search}`)} replace />;
+  return (
+    <div className="flex min-h-screen flex-col">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-ink focus:px-3 focus:py-2 focus:text-paper">
+        Skip to content
+      </a>
+      <AppBar displayName={me?.displayName ?? ''} />
+      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">
+        <Suspense fallback={<Loading />}>
+          <Outlet />
+        </Suspense>
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,49 @@
+/**
+ * The route table. Every route is lazy (its own chunk) and lives in one file under `routes/`,
+ * which may export `clientLoader(queryClient)` (prefetching through the features' query options)
+ * and `ErrorBoundary`; the default export is the page.
+ */
+import type { QueryClient } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
+import { createBrowserRouter, redirect, type LoaderFunction, type RouteObject } from 'react-router-dom';
+import { RouteError } from '../components/route-error';
+import { paths } from '../config/paths';
+
+interface RouteModule {
+  default: ComponentType;
+  clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+  ErrorBoundary?: ComponentType;
+}
+
+const convert = (queryClient: QueryClient) => (module: RouteModule) => ({
+  Component: module.default,
+  loader: module.clientLoader?.(queryClient),
+  ErrorBoundary: module.ErrorBoundary ?? RouteError,
+});
+
+export function createRoutes(queryClient: QueryClient): RouteObject[] {
+  const load = convert(queryClient);
+  return [
+    {
+      ErrorBoundary: RouteError,
+      HydrateFallback: () => null,
+      children: [
+        { path: paths.auth.signIn.path, lazy: () => import('./routes/sign-in').then(load) },
+        { path: paths.auth.signUp.path, lazy: () => import('./routes/sign-up').then(load) },
+        {
+          // Everything below needs a signed-in user; the layout's loader sends others to sign in.
+          lazy: () => import('./layout').then(load),
+          children: [
+            { path: paths.home.path, loader: () => redirect(paths.rooms.getHref()) },
+            { path: paths.rooms.path, lazy: () => import('./routes/rooms').then(load) },
+            { path: paths.room.path, lazy: () => import('./routes/room').then(load) },
+            { path: paths.members.path, lazy: () => import('./routes/members').then(load) },
+          ],
+        },
+        { path: '*', lazy: () => import('./routes/not-found').then(load) },
+      ],
+    },
+  ];
+}
+
+export const createAppRouter = (queryClient: QueryClient) => createBrowserRouter(createRoutes(queryClient));

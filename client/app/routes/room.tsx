@@ -1,0 +1,33 @@
+import { lazy, Suspense } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { buttonClass } from '../../components/button';
+import { Loading } from '../../components/page-status';
+import { paths } from '../../config/paths';
+import { useRoom } from '../../features/rooms/api/get-room';
+import { RoomHeader } from '../../features/rooms/components/room-header';
+import { roomLoader } from '../room-loader';
+
+const Workspace = lazy(() => import('../../features/workspace/workspace'));
+
+export const clientLoader = roomLoader;
+
+export default function RoomRoute() {
+  const roomId = useParams().roomId ?? '';
+  const { data: room } = useRoom(roomId);
+  if (!room) return <Loading />;
+  return (
+    <div className="flex flex-col">
+      <RoomHeader
+        room={room}
+        actions={
+          <Link to={paths.members.getHref(room.id)} className={buttonClass('secondary', 'sm')}>
+            Members
+          </Link>
+        }
+      />
+      <Suspense fallback={<Loading label="Opening the room…" />}>
+        <Workspace roomId={room.id} role={room.role} />
+      </Suspense>
+    </div>
+  );
+}

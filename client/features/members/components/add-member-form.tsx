@@ -1,0 +1,48 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { Button } from '../../../components/button';
+import { FormError, SelectField, TextField } from '../../../components/form-field';
+import { showServerErrors } from '../../../lib/form-errors';
+import { notices } from '../../../lib/notices';
+import { roomRoles } from '../../../lib/room-role';
+import { addMemberInputSchema, useAddMember, type AddMemberInput } from '../api/add-member';
+
+const roleOptions = roomRoles.map((role) => ({ value: role, label: role[0].toUpperCase() + role.slice(1) }));
+
+/** The owner's form: add someone by e-mail with a role (an address without an account is invited). */
+export function AddMemberForm({ roomId }: { roomId: string }) {
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, reset, formState } = useForm<AddMemberInput>({
+    resolver: zodResolver(addMemberInputSchema),
+    defaultValues: { email: '', role: 'tuner' },
+  });
+  const addMember = useAddMember(roomId, {
+    onSuccess: (_data, input) => {
+      reset({ email: '', role: input.role });
+      notices.post({ tone: 'success', title: 'Member added', message: `${input.email} is now a ${input.role} of this room.` });
+    },
+    onError: (error) => setFormError(showServerErrors(error, ['email', 'role'], setError)),
+  });
+
+  return (
+    <form
+      onSubmit={handleSubmit((input) => {
+        setFormError(null);
+        addMember.mutate({ roomId, ...input });
+      })}
+      noValidate
+      aria-label="Add a member"
+      className="flex flex-col gap-3"
+    >
+      <FormError message={formError} />
+      <div className="flex flex-col gap-3 sm:flex-row sm:items-start">
+        <TextField label="E-mail" type="email" autoComplete="off" className="flex-1" error={formState.errors.email?.message} {...register('email')} />
+        <SelectField label="Role" options={roleOptions} className="sm:w-40" error={formState.errors.role?.message} {...register('role')} />
+        <Button type="submit" busy={addMember.isPending} busyLabel="Adding…" className="sm:mt-6">
+          Add member
+        </Button>
+      </div>
+    </form>
+  );
+}

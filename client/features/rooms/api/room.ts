@@ -1,0 +1,26 @@
+import { z } from 'zod';
+import { roomRoleSchema } from '../../../lib/room-role';
+
+/** A time from the server: epoch milliseconds or an ISO string. */
+const timeSchema = z.union([z.number(), z.string()]);
+
+/** Where a branch came from: the snapshot it was started from and that snapshot's room. */
+export const roomParentSchema = z.looseObject({
+  snapshotId: z.string().optional(),
+  snapshotLabel: z.string().optional(),
+  roomId: z.string().optional(),
+  roomName: z.string().optional(),
+});
+
+/** One entry of `GET /api/rooms`: the contract's `id`, `name`, `role`, plus what the server adds. */
+export const roomSummarySchema = z.looseObject({
+  id: z.string(),
+  name: z.string(),
+  role: roomRoleSchema,
+  updatedAt: timeSchema.optional(),
+  createdAt: timeSchema.optional(),
+  parent: roomParentSchema.nullable().optional(),
+});
+
+export type RoomSummary = z.infer<typeof roomSummarySchema>;
+export type RoomParent = z.infer<typeof roomParentSchema>;
