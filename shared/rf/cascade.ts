@@ -1,0 +1,271 @@
+/**
+ * The fast path: input impedance of a chain over a frequency grid, for refine, yield and the
+ * match finder, which call it thousands of times. Frequency-outer loop over a compiled plan
+ * (elements.ts); scalar complex arithmetic on locals; nothing allocated per point.
+ *
+ * The state at each point is the pair (N, D) with Z = N/D, i.e. the load-side voltage and
+ * current up to a common factor. Each element maps (N, D) linearly (series: N += Z·D; shunt:
+ * D += Y·N; line: the ABCD matrix), so no step divides and an open, a short or a resonance
+ * is exact until the one division at the end. The pair is rescaled when it grows past 1e150
+ * (or falls below 1e-150). The final Zin is clamped to IMPEDANCE_OPEN_OHMS (complex.ts).
+ */
+import { IMPEDANCE_OPEN_OHMS } from './complex';
+import { type Complex, type Design, type Element } from './design';
+import {
+  chainPlan,
+  K_LINE,
+  K_OPEN_STUB,
+  K_SERIES_C,
+  K_SERIES_L,
+  K_SERIES_R,
+  K_SHORT_STUB,
+  K_SHUNT_C,
+  K_SHUNT_L,
+  K_SHUNT_R,
+  K_TRANSFORMER,
+  K_TWO_PORT,
+} from './elements';
+import { sweepFrequencies } from './frequency';
+import { loadImpedances } from './loads';
+
+export { bandFrequencies } from './frequency';
+
+const TWO_PI = 2 * Math.PI;
+const OPEN2 = IMPEDANCE_OPEN_OHMS * IMPEDANCE_OPEN_OHMS;
+
+/** What the fast path needs about a design on one frequency grid. */
+export interface SweepContext {
+  freqs: Float64Array;
+  /** Load impedance, interleaved re, im per frequency (ohms). */
+  loadZ: Float64Array;
+  /** referenceOhms. */
+  z0: number;
+  /** Port impedance (defaults to [referenceOhms, 0]). */
+  zs: [number, number];
+}
+
+/** The port impedance of a design. */
+export function portImpedance(design: Design): Complex {
+  const zs = design.port?.impedance;
+  return zs ? [zs[0], zs[1]] : [design.referenceOhms, 0];
+}
+
+/** Context for `freqs` (default: the design's sweep). Throws DesignError for a measured load that does not cover them. */
+export function sweepContext(design: Design, freqs: Float64Array = sweepFrequencies(design.sweep)): SweepContext {
+  return {
+    freqs,
+    loadZ: loadImpedances(design.load, design.referenceOhms, freqs),
+    z0: design.referenceOhms,
+    zs: portImpedance(design),
+  };
+}
+
+/**
+ * Input impedance at the port of `elements` (load -> port) terminated by the context's load,
+ * interleaved re, im per frequency. Throws DesignError for a two-port whose data do not cover the grid.
+ */
+export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: Float64Array): Float64Array {
+  const { freqs, loadZ } = ctx;
+  const n = freqs.length;
+  const res = out ?? new Float64Array(2 * n);
+  const plan = chainPlan(elements, freqs);
+  const { kinds, p, tables, count } = plan;
+  for (let i = 0; i < n; i++) {
+    const f = freqs[i];
+    const w = TWO_PI * f;
+    let nr = loadZ[2 * i];
+    let ni = loadZ[2 * i + 1];
+    let dr = 1;
+    let di = 0;
+    for (let e = 0; e < count; e++) {
+      const o = 4 * e;
+      switch (kinds[e]) {
+        case K_SERIES_L: {
+          const x = w * p[o];
+          const r = x * p[o + 1];
+          nr += r * dr - x * di;
+          ni += r * di + x * dr;
+          break;
+        }
+        case K_SERIES_C: {
+          // N' = N·Y + D, D' = D·Y with Y = ωC/Q + jωC.
+          const b = w * p[o];
+          const g = b * p[o + 1];
+          const tr = nr * g - ni * b + dr;
+          const ti = nr * b + ni * g + di;
+          const ur = dr * g - di * b;
+          di = dr * b + di * g;
+          dr = ur;
+          nr = tr;
+          ni = ti;
+          break;
+        }
+        case K_SERIES_R:
+          nr += p[o] * dr;
+          ni += p[o] * di;
+          break;
+        case K_SHUNT_L: {
+          // N' = N·Zl, D' = D·Zl + N with Zl = ωL/Q + jωL.
+          const x = w * p[o];
+          const r = x * p[o + 1];
+          const ur = dr * r - di * x + nr;
+          const ui = dr * x + di * r + ni;
+          const tr = nr * r - ni * x;
+          ni = nr * x + ni * r;
+          nr = tr;
+          dr = ur;
+          di = ui;
+          break;
+        }
+        case K_SHUNT_C: {
+          const b = w * p[o];
+          const g = b * p[o + 1];
+          dr += g * nr - b * ni;
+          di += g * ni + b * nr;
+          break;
+        }
+        case K_SHUNT_R:
+          dr += nr / p[o];
+          di += ni / p[o];
+          break;
+        case K_LINE: {
+          const z0 = p[o];
+          const th = p[o + 1] * f;
+          const c = Math.cos(th);
+          const s = Math.sin(th);
+          const ar = p[o + 2] * c, ai = p[o + 3] * s; // cosh γl
+          const sr = p[o + 3] * c, si = p[o + 2] * s; // sinh γl
+          const br = z0 * sr, bi = z0 * si;
+          const cr = sr / z0, ci = si / z0;
+          const tr = ar * nr - ai * ni + br * dr - bi * di;
+          const ti = ar * ni + ai * nr + br * di + bi * dr;
+          const ur = cr * nr - ci * ni + ar * dr - ai * di;
+          const ui = cr * ni + ci * nr + ar * di + ai * dr;
+          nr = tr;
+          ni = ti;
+          dr = ur;
+          di = ui;
+          break;
+        }
+        case K_OPEN_STUB:
+        case K_SHORT_STUB: {
+          // Open: N' = N·cosh, D' = D·cosh + N·sinh/z0. Short: the same with cosh and sinh swapped.
+          const z0 = p[o];
+          const th = p[o + 1] * f;
+          const c = Math.cos(th);
+          const s = Math.sin(th);
+          let ar = p[o + 2] * c, ai = p[o + 3] * s;
+          let sr = p[o + 3] * c, si = p[o + 2] * s;
+          if (kinds[e] === K_SHORT_STUB) {
+            const t1 = ar, t2 = ai;
+            ar = sr;
+            ai = si;
+            sr = t1;
+            si = t2;
+          }
+          sr /= z0;
+          si /= z0;
+          const ur = dr * ar - di * ai + nr * sr - ni * si;
+          const ui = dr * ai + di * ar + nr * si + ni * sr;
+          const tr = nr * ar - ni * ai;
+          ni = nr * ai + ni * ar;
+          nr = tr;
+          dr = ur;
+          di = ui;
+          break;
+        }
+        case K_TRANSFORMER: {
+          const n2 = p[o] * p[o];
+          nr *= n2;
+          ni *= n2;
+          break;
+        }
+        case K_TWO_PORT: {
+          const t = tables[e] as Float64Array;
+          const q = 8 * i;
+          const tr = t[q] * nr - t[q + 1] * ni + t[q + 2] * dr - t[q + 3] * di;
+          const ti = t[q] * ni + t[q + 1] * nr + t[q + 2] * di + t[q + 3] * dr;
+          const ur = t[q + 4] * nr - t[q + 5] * ni + t[q + 6] * dr - t[q + 7] * di;
+          const ui = t[q + 4] * ni + t[q + 5] * nr + t[q + 6] * di + t[q + 7] * dr;
+          nr = tr;
+          ni = ti;
+          dr = ur;
+          di = ui;
+          break;
+        }
+      }
+      const m = Math.abs(nr) + Math.abs(ni) + Math.abs(dr) + Math.abs(di);
+      if (m > 1e150 || m < 1e-150) {
+        if (m === 0) {
+          // Only a short followed by a zero-length shorted stub gets here: still a short.
+          dr = 1;
+        } else {
+          const k = 1 / m;
+          nr *= k;
+          ni *= k;
+          dr *= k;
+          di *= k;
+        }
+      }
+    }
+    impedanceRatio(nr, ni, dr, di, res, 2 * i);
+  }
+  return res;
+}
+
+/**
+ * N/D into out[o], out[o + 1], clamped to IMPEDANCE_OPEN_OHMS in magnitude (an open keeps the
+ * direction of N·conj(D), or of N when D = 0).
+ */
+export function impedanceRatio(nr: number, ni: number, dr: number, di: number, out: Float64Array, o: number): void {
+  const n2 = nr * nr + ni * ni;
+  const d2 = dr * dr + di * di;
+  if (n2 <= OPEN2 * d2) {
+    out[o] = (nr * dr + ni * di) / d2;
+    out[o + 1] = (ni * dr - nr * di) / d2;
+    return;
+  }
+  let ur = nr, ui = ni;
+  if (d2 > 0) {
+    ur = nr * dr + ni * di;
+    ui = ni * dr - nr * di;
+  }
+  const m = Math.sqrt(ur * ur + ui * ui);
+  out[o] = (ur / m) * IMPEDANCE_OPEN_OHMS;
+  out[o + 1] = (ui / m) * IMPEDANCE_OPEN_OHMS;
+}
+
+/**
+ * Power-wave reflection Γ = (Zin − Zs*)/(Zin + Zs) at each point (CONTRACT §1), interleaved.
+ * Where Zin + Zs = 0 (only possible for an active measured load) Γ is reported as 1.
+ */
+export function gammaFromZin(zin: Float64Array, zs: [number, number], out?: Float64Array): Float64Array {
+  const n = zin.length >> 1;
+  const res = out ?? new Float64Array(2 * n);
+  const [sr, si] = zs;
+  for (let i = 0; i < n; i++) {
+    const zr = zin[2 * i];
+    const zi = zin[2 * i + 1];
+    const ar = zr - sr, ai = zi + si;
+    const br = zr + sr, bi = zi + si;
+    const d = br * br + bi * bi;
+    if (d === 0) {
+      res[2 * i] = 1;
+      res[2 * i + 1] = 0;
+      continue;
+    }
+    res[2 * i] = (ar * br + ai * bi) / d;
+    res[2 * i + 1] = (ai * br - ar * bi) / d;
+  }
+  return res;
+}
+
+/** The largest |Γ| of an interleaved series (0 for an empty one). */
+export function gammaMagnitudeMax(gamma: Float64Array): number {
+  let m2 = 0;
+  for (let i = 0; i < gamma.length; i += 2) {
+    const v = gamma[i] * gamma[i] + gamma[i + 1] * gamma[i + 1];
+    if (v > m2) m2 = v;
+  }
+  return Math.sqrt(m2);
+}
