@@ -162,12 +162,12 @@ function mul2(a: readonly number[], b: readonly number[]): number[] {
  * Z: S = (z − I)(z + I)⁻¹. Y: S = (I − y)(I + y)⁻¹. Returns false when z + I (or I + y) is singular.
  */
 function toScattering(m: number[], ports: number, parameter: 'Z' | 'Y'): boolean {
-  const sign = parameter === 'Z' ? 1 : -1;
+  // Numerator N = z − I (Z) or I − y (Y); denominator D = z + I or I + y.
+  const isZ = parameter === 'Z';
   if (ports === 1) {
     const [r, i] = m;
-    // (z − 1)/(z + 1) or (1 − y)/(1 + y)
-    const nr = sign * r - 1;
-    const ni = sign * i;
+    const nr = isZ ? r - 1 : 1 - r;
+    const ni = isZ ? i : -i;
     const dr = r + 1;
     const di = i;
     const den = dr * dr + di * di;
@@ -176,12 +176,13 @@ function toScattering(m: number[], ports: number, parameter: 'Z' | 'Y'): boolean
     m[1] = (ni * dr - nr * di) / den;
     return true;
   }
-  const minus = m.map((v, k) => sign * v - (k === 0 || k === 6 ? 1 : 0));
-  const plus = m.map((v, k) => v + (k === 0 || k === 6 ? 1 : 0));
-  const inv = invert2(plus);
+  const diagonal = (k: number) => (k === 0 || k === 6 ? 1 : 0);
+  const numerator = m.map((v, k) => (isZ ? v - diagonal(k) : diagonal(k) - v));
+  const denominator = m.map((v, k) => v + diagonal(k));
+  const inv = invert2(denominator);
   if (!inv) return false;
-  // (z − I) and (z + I)⁻¹ commute, so the product order does not matter.
-  const s = mul2(minus, inv);
+  // N and D⁻¹ are functions of the same matrix and commute, so the product order does not matter.
+  const s = mul2(numerator, inv);
   for (let k = 0; k < 8; k++) m[k] = s[k];
   return true;
 }
@@ -312,8 +313,8 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
   const lines = text.split(/\r\n|\r|\n/);
   for (let li = 0; li < lines.length; li++) {
     const lineNo = li + 1;
-    lastLine = lineNo;
     let raw = lines[li];
+    if (raw.trim() !== '') lastLine = lineNo;
     const bang = raw.indexOf('!');
     if (bang >= 0) {
       const c = raw.slice(bang + 1).trim();
@@ -533,7 +534,8 @@ export function resampleTouchstone(data: TouchstoneData, freqs: Float64Array): F
     const t = (f - fs[k]) / (fs[k + 1] - fs[k]);
     const base0 = k * width;
     const base1 = base0 + width;
-    for (let j = 0; j < width; j++) out[i * width + j] = s[base0 + j] + t * (s[base1 + j] - s[base0 + j]);
+    // (1 − t)·a + t·b is exact at both ends, so measured points come back unchanged.
+    for (let j = 0; j < width; j++) out[i * width + j] = (1 - t) * s[base0 + j] + t * s[base1 + j];
   }
   return out;
 }
