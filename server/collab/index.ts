@@ -1,29 +1,42 @@
 /**
- * The collaboration hub: the Yjs room socket at `/collab/<roomId>` and the socket.io room events, on
- * the application's http server. The server engineer wires it in `server/main.ts`:
+ * The collaboration hub: the Yjs room socket at `/collab/<roomId>` and the socket.io room events
+ * (`/socket.io`), on the application's http server. The server wires it in `server/main.ts`:
  *
  *   const hub = createCollabHub({ knex, tokens, logger, config }); hub.attach(httpServer);
  *   // after a role change or removal:  hub.roleChanged(roomId, userId, role | null)
  *   // after a room is deleted:         hub.roomDeleted(roomId)
  *   // after a snapshot is created:     hub.emit(roomId, ROOM_EVENTS.snapshotCreated, payload)
  *   // on shutdown:                     await hub.close()
+ *
+ * The socket's rules (authorisation, roles, limits, close codes, storage) are in server/collab/README.md.
  */
 import type http from 'node:http';
+import type { Duplex } from 'node:stream';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
+import { WebSocketServer } from 'ws';
 import type { Config } from '../config';
 import type { Role, TokenService } from '../auth/tokens';
+import { getRole } from '../rooms/membership';
+import { authoriseRoom, identifyUser } from './auth';
+import { CollabConnection, closeReason } from './connection';
+import { DEFAULT_LIMITS, type CollabLimits } from './limits';
+import type { Room } from './room';
+import { RoomEvents } from './room-events';
+import { RoomLogWriter } from './room-log';
+import { RoomRegistry } from './rooms';
+import { COLLAB_CLOSE } from '../../shared/collab/close-codes';
 
 export interface CollabHub {
   /** Handle `/collab/<roomId>` upgrades and mount socket.io at `/socket.io` on this server. */
   attach(httpServer: http.Server): void;
   /** A member's role changed (`null`: removed). Takes effect at once on open sockets. */
   roleChanged(roomId: string, userId: string, role: Role | null): void;
-  /** The room is gone: disconnect everyone in it and forget its document. */
+  /** The room is gone: disconnect everyone in it (4404) and forget its document. */
   roomDeleted(roomId: string): void;
-  /** Send a room event (e.g. snapshot-created) to every socket.io client in the room. */
+  /** Send a room event (e.g. `ROOM_EVENTS.snapshotCreated`) to every events socket in the room. */
   emit(roomId: string, event: string, payload: unknown): void;
-  /** Flush every loaded document to storage, close all sockets. */
+  /** Close every socket, store every loaded document (compacted), detach from the server. */
   close(): Promise<void>;
 }
 
@@ -34,19 +47,188 @@ export interface CollabDeps {
   config: Config;
 }
 
-export function createCollabHub(deps: CollabDeps): CollabHub {
-  const { logger } = deps;
-  let server: http.Server | undefined;
+export const COLLAB_PATH = '/collab/';
+const ROOM_ID = /^[A-Za-z0-9_-]{1,100}$/;
+
+interface Refusal {
+  code: number;
+  reason: string;
+}
+
+/** `limits` overrides the defaults (tests and benchmarks shorten the timings). */
+export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<CollabLimits> = {}): CollabHub {
+  const { knex, tokens, config } = deps;
+  const limits: CollabLimits = { ...DEFAULT_LIMITS, ...limitsOverride };
+  const logger = deps.logger.child({ module: 'collab' });
+
+  // eslint-disable-next-line prefer-const
+  let events: RoomEvents;
+  const roomLog = new RoomLogWriter(knex, logger, limits, (roomId, entry) => events.emitLog(roomId, entry));
+  events = new RoomEvents({ knex, tokens, logger, limits, roomLog, publicUrl: config.publicUrl });
+  const registry = new RoomRegistry({
+    knex,
+    logger,
+    limits,
+    onChanges: (roomId, userId, changes) => roomLog.record(roomId, userId, changes),
+  });
+  // The hard cap sits above the per-message limit so that an oversized message gets a clear 4413.
+  const wss = new WebSocketServer({ noServer: true, maxPayload: limits.maxDocumentBytes + 64 * 1024, perMessageDeflate: false });
+  const connections = new Set<CollabConnection>();
+  let server: http.Server | null = null;
+  let closing = false;
+
+  const ping = setInterval(() => {
+    for (const c of connections) {
+      if (c.awaitingPong) {
+        c.terminate();
+        continue;
+      }
+      c.awaitingPong = true;
+      try {
+        c.ws.ping();
+      } catch {
+        c.terminate();
+      }
+    }
+  }, limits.pingIntervalMs);
+  ping.unref();
+
+  async function authorise(req: http.IncomingMessage, url: URL): Promise<{ roomId: string; userId: string; role: Role } | Refusal> {
+    const raw = url.pathname.slice(COLLAB_PATH.length);
+    let roomId: string;
+    try {
+      roomId = decodeURIComponent(raw);
+    } catch {
+      return { code: COLLAB_CLOSE.badMessage, reason: 'the room socket path is /collab/<roomId>' };
+    }
+    if (!ROOM_ID.test(roomId)) return { code: COLLAB_CLOSE.badMessage, reason: 'the room socket path is /collab/<roomId>' };
+    const who = await identifyUser(
+      tokens,
+      { cookieHeader: req.headers.cookie, token: url.searchParams.get('token') ?? undefined, origin: req.headers.origin, host: req.headers.host },
+      config.publicUrl,
+    );
+    if (!who.ok) return who;
+    const access = await authoriseRoom(knex, who, roomId);
+    if (!access.ok) return access;
+    return { roomId, userId: who.userId, role: access.role };
+  }
+
+  async function onCollabUpgrade(req: http.IncomingMessage, socket: Duplex, head: Buffer): Promise<void> {
+    socket.on('error', () => socket.destroy());
+    const url = new URL(req.url ?? '/', 'http://localhost');
+    let outcome: Awaited<ReturnType<typeof authorise>>;
+    try {
+      outcome = await authorise(req, url);
+    } catch (e) {
+      logger.error({ err: e }, 'room socket authorisation failed');
+      outcome = { code: COLLAB_CLOSE.serverError, reason: 'the server could not check your access; try again' };
+    }
+    let room: Room | null = null;
+    if (closing) outcome = { code: COLLAB_CLOSE.goingAway, reason: 'the server is restarting' };
+    else if (!('code' in outcome)) {
+      try {
+        room = await registry.acquire(outcome.roomId);
+      } catch (e) {
+        logger.error({ err: e, roomId: outcome.roomId }, 'room document could not be loaded');
+        outcome = { code: COLLAB_CLOSE.serverError, reason: 'the room could not be loaded; try again' };
+      }
+    }
+    if (socket.destroyed) {
+      room?.release();
+      return;
+    }
+    let upgraded = false;
+    socket.once('close', () => {
+      if (!upgraded) room?.release();
+    });
+    wss.handleUpgrade(req, socket, head, (ws) => {
+      upgraded = true;
+      // Refuse after accepting, so the client sees a 44xx close code and stops retrying.
+      if ('code' in outcome) {
+        logger.debug({ code: outcome.code, reason: outcome.reason }, 'refused a room socket');
+        ws.close(outcome.code, closeReason(outcome.reason));
+        return;
+      }
+      const { roomId, userId, role } = outcome;
+      const r = room!;
+      if (r.state !== 'open') {
+        r.release();
+        ws.close(COLLAB_CLOSE.goingAway, 'the room is unloading; reconnect');
+        return;
+      }
+      const conn = new CollabConnection(ws, userId, role, limits.maxBufferedBytes);
+      connections.add(conn);
+      conn.whenClosed(() => connections.delete(conn));
+      ws.on('message', (data, isBinary) => {
+        if (!isBinary) {
+          conn.close(COLLAB_CLOSE.badMessage, 'text frames are not part of the protocol');
+          return;
+        }
+        const buf = Array.isArray(data) ? Buffer.concat(data) : data instanceof ArrayBuffer ? new Uint8Array(data) : data;
+        r.receive(conn, buf);
+      });
+      r.attach(conn);
+      logger.debug({ roomId, userId, role }, 'room socket open');
+      // A role change between the check above and now would be missed: read it once more.
+      getRole(knex, roomId, userId).then(
+        (now) => {
+          if (conn.roleSetByHub || conn.closed) return;
+          if (now === null) conn.close(COLLAB_CLOSE.forbidden, 'not a member of this room');
+          else conn.role = now;
+        },
+        () => {},
+      );
+    });
+  }
+
+  const onUpgrade = (req: http.IncomingMessage, socket: Duplex, head: Buffer) => {
+    const path = (req.url ?? '').split('?')[0];
+    if (path.startsWith(COLLAB_PATH)) {
+      void onCollabUpgrade(req, socket, head);
+      return;
+    }
+    if (path.startsWith('/socket.io')) return; // engine.io's own upgrade handler
+    // Nobody else answered this upgrade within a second: drop it (as engine.io does by default).
+    setTimeout(() => {
+      if (!socket.destroyed && (socket as Duplex & { bytesWritten?: number }).bytesWritten === 0) socket.destroy();
+    }, 1000).unref();
+  };
+
   return {
     attach(httpServer) {
+      if (server) throw new Error('the collab hub is already attached');
       server = httpServer;
-      logger.debug('collab hub attached (thin: socket handling not yet wired)');
+      httpServer.on('upgrade', onUpgrade);
+      events.attach(httpServer);
     },
-    roleChanged() {},
-    roomDeleted() {},
-    emit() {},
+
+    roleChanged(roomId, userId, role) {
+      registry.get(roomId)?.setRole(userId, role);
+      events.roleChanged(roomId, userId, role);
+    },
+
+    roomDeleted(roomId) {
+      const room = registry.get(roomId);
+      if (room) void registry.unload(room, { compact: false, closeCode: COLLAB_CLOSE.roomGone, closeReason: 'this room was deleted' });
+      roomLog.forgetRoom(roomId);
+      events.roomDeleted(roomId);
+    },
+
+    emit(roomId, event, payload) {
+      events.emit(roomId, event, payload);
+    },
+
     async close() {
-      server = undefined;
+      if (closing) return;
+      closing = true;
+      clearInterval(ping);
+      server?.off('upgrade', onUpgrade);
+      await events.close();
+      await registry.closeAll();
+      for (const c of connections) c.terminate();
+      await roomLog.flush();
+      await new Promise<void>((resolve) => wss.close(() => resolve()));
+      server = null;
     },
   };
 }

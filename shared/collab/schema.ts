@@ -193,3 +193,13 @@ export function replaceElements(doc: Y.Doc, elements: readonly Element[], origin
 export function undoScope(doc: Y.Doc): Y.Map<unknown> {
   return designMap(doc);
 }
+
+/** Each element's fractional-index order key, by element id (for describing reorders). */
+export function elementOrderKeys(doc: Y.Doc): Record<string, string> {
+  const out: Record<string, string> = {};
+  elementsMap(doc)?.forEach((m, id) => {
+    const order = m instanceof Y.Map ? m.get(ORDER_KEY) : undefined;
+    out[id] = typeof order === 'string' ? order : '';
+  });
+  return out;
+}

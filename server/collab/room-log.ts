@@ -1,0 +1,149 @@
+/**
+ * The room log: who changed what, when, in words ("Ada changed C2 from 1.2 pF to 1.5 pF"), stored in
+ * `room_log` and sent to the room as it happens. Rapid edits of one field by one person (within
+ * `logCoalesceMs` of each other) are one entry: the first edit inserts the row and sends it; later ones
+ * rewrite that row's wording and time (at most every FLUSH_MS) and send it again with the same id.
+ */
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import type { CollabLimits } from './limits';
+import { changeSentence, mergeChanges, type DesignChange } from '../../shared/collab/describe';
+import type { RoomLogEntry } from '../../shared/collab/events';
+
+const FLUSH_MS = 250;
+const NAME_TTL_MS = 60_000;
+const UNKNOWN_NAME = 'Someone';
+
+interface Burst {
+  roomId: string;
+  userId: string;
+  change: DesignChange;
+  lastAt: number;
+  id: number | null;
+  dirty: boolean;
+  timer: NodeJS.Timeout | null;
+}
+
+export class RoomLogWriter {
+  private readonly bursts = new Map<string, Burst>();
+  private readonly names = new Map<string, { name: string; at: number }>();
+  private chain: Promise<void> = Promise.resolve();
+
+  constructor(
+    private readonly knex: Knex,
+    private readonly logger: Logger,
+    private readonly limits: CollabLimits,
+    private readonly emit: (roomId: string, entry: RoomLogEntry) => void,
+  ) {}
+
+  /** Record the changes one accepted update made. */
+  record(roomId: string, userId: string, changes: readonly DesignChange[]): void {
+    const now = Date.now();
+    for (const c of changes) {
+      const key = `${roomId}\u0000${userId}\u0000${c.key}`;
+      const b = this.bursts.get(key);
+      if (b && now - b.lastAt <= this.limits.logCoalesceMs) {
+        const merged = mergeChanges(b.change, c);
+        if (merged) {
+          b.change = merged;
+          b.lastAt = now;
+          this.scheduleFlush(b);
+          continue;
+        }
+      }
+      if (b?.timer) this.flushNow(b);
+      const burst: Burst = { roomId, userId, change: c, lastAt: now, id: null, dirty: false, timer: null };
+      this.bursts.set(key, burst);
+      this.enqueue(() => this.insert(burst));
+    }
+    this.prune(now);
+  }
+
+  /** The room's latest entries, oldest first. */
+  async history(roomId: string, limit = this.limits.logHistory): Promise<RoomLogEntry[]> {
+    const rows = await this.knex('room_log as l')
+      .leftJoin('users as u', 'u.id', 'l.user_id')
+      .where('l.room_id', roomId)
+      .orderBy('l.id', 'desc')
+      .limit(limit)
+      .select('l.id', 'l.user_id', 'l.message', 'l.created_at', 'u.display_name');
+    return rows.reverse().map((r) => ({
+      id: Number(r.id),
+      roomId,
+      userId: r.user_id ?? null,
+      displayName: r.display_name ?? UNKNOWN_NAME,
+      message: String(r.message),
+      at: Number(r.created_at),
+    }));
+  }
+
+  /** A member's display name (cached for a minute). */
+  async displayName(userId: string): Promise<string> {
+    const hit = this.names.get(userId);
+    if (hit && Date.now() - hit.at < NAME_TTL_MS) return hit.name;
+    const row = await this.knex('users').where({ id: userId }).first('display_name');
+    const name = row?.display_name ? String(row.display_name) : UNKNOWN_NAME;
+    this.names.set(userId, { name, at: Date.now() });
+    return name;
+  }
+
+  /** Write every pending rewording and wait for all writes. */
+  async flush(): Promise<void> {
+    for (const b of this.bursts.values()) if (b.timer) this.flushNow(b);
+    await this.chain;
+  }
+
+  /** Forget a deleted room's bursts. */
+  forgetRoom(roomId: string): void {
+    for (const [k, b] of this.bursts) {
+      if (b.roomId !== roomId) continue;
+      if (b.timer) clearTimeout(b.timer);
+      this.bursts.delete(k);
+    }
+  }
+
+  private enqueue(op: () => Promise<void>): void {
+    this.chain = this.chain.then(op).catch((e: unknown) => {
+      this.logger.warn({ err: e }, 'room log write failed');
+    });
+  }
+
+  private scheduleFlush(b: Burst): void {
+    b.dirty = true;
+    if (b.timer) return;
+    b.timer = setTimeout(() => this.flushNow(b), FLUSH_MS);
+  }
+
+  private flushNow(b: Burst): void {
+    if (b.timer) clearTimeout(b.timer);
+    b.timer = null;
+    this.enqueue(() => this.rewrite(b));
+  }
+
+  private async entry(b: Burst, id: number): Promise<RoomLogEntry> {
+    const displayName = await this.displayName(b.userId);
+    return { id, roomId: b.roomId, userId: b.userId, displayName, message: `${displayName} ${changeSentence(b.change)}`, at: b.lastAt };
+  }
+
+  private async insert(b: Burst): Promise<void> {
+    const draft = await this.entry(b, 0);
+    const [row] = await this.knex('room_log')
+      .insert({ room_id: b.roomId, user_id: b.userId, message: draft.message.slice(0, 1000), created_at: draft.at })
+      .returning('id');
+    b.id = typeof row === 'object' ? Number((row as { id: number }).id) : Number(row);
+    this.emit(b.roomId, { ...draft, id: b.id });
+  }
+
+  private async rewrite(b: Burst): Promise<void> {
+    if (!b.dirty || b.id === null) return;
+    b.dirty = false;
+    const e = await this.entry(b, b.id);
+    await this.knex('room_log').where({ id: b.id }).update({ message: e.message.slice(0, 1000), created_at: e.at });
+    this.emit(b.roomId, e);
+  }
+
+  private prune(now: number): void {
+    for (const [k, b] of this.bursts)
+      if (!b.timer && !b.dirty && now - b.lastAt > this.limits.logCoalesceMs) this.bursts.delete(k);
+  }
+}

@@ -1,0 +1,367 @@
+/**
+ * One loaded room: its Yjs document, the sockets in it and their awareness (cursor/selection presence),
+ * and the write path. Every document update from a member who may edit goes through one queue per
+ * room: checked, appended to `room_updates` (awaited), then applied and broadcast, in arrival order.
+ * Observers' reads are answered; their writes are dropped. The log is compacted into `room_states`
+ * every `compactEvery` accepted updates and when the room unloads.
+ */
+import * as Y from 'yjs';
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import * as awarenessProtocol from 'y-protocols/awareness';
+import { appendUpdates, loadRoomDocument, saveRoomState } from './store';
+import type { CollabConnection } from './connection';
+import { formatBytes, type CollabLimits } from './limits';
+import {
+  awarenessMessage,
+  decodeDocumentUpdate,
+  parseAwarenessUpdate,
+  parseClientMessage,
+  ProtocolError,
+  syncStep1Message,
+  syncStep2Message,
+  updateMessage,
+} from './protocol';
+import { COLLAB_CLOSE } from '../../shared/collab/close-codes';
+import { describeDesignChanges, designSnapshot, type DesignChange, type DesignSnapshot } from '../../shared/collab/describe';
+
+export interface RoomDeps {
+  knex: Knex;
+  logger: Logger;
+  limits: CollabLimits;
+  /** Accepted changes, described, attributed to the member whose update made them. */
+  onChanges?: (roomId: string, userId: string, changes: DesignChange[]) => void;
+}
+
+interface PendingWrite {
+  conn: CollabConnection;
+  update: Uint8Array;
+  decoded: ReturnType<typeof Y.decodeUpdate>;
+}
+
+type RoomState = 'open' | 'closing' | 'closed';
+
+/** True when applying the update would change nothing (every struct known, every deletion done). */
+export function updateIsRedundant(doc: Y.Doc, decoded: ReturnType<typeof Y.decodeUpdate>): boolean {
+  const sv = Y.decodeStateVector(Y.encodeStateVector(doc));
+  for (const s of decoded.structs) {
+    if (s instanceof Y.Skip) continue;
+    if ((sv.get(s.id.client) ?? 0) < s.id.clock + s.length) return false;
+  }
+  if (decoded.ds.clients.size === 0) return true;
+  const have = Y.createDeleteSetFromStructStore(doc.store);
+  for (const [client, ranges] of decoded.ds.clients) {
+    const mine = have.clients.get(client) ?? [];
+    for (const r of ranges) {
+      if (r.len === 0) continue;
+      // `mine` is sorted and merged: find the range holding r.clock and check it covers all of r.
+      let lo = 0;
+      let hi = mine.length - 1;
+      let covered = false;
+      while (lo <= hi) {
+        const mid = (lo + hi) >> 1;
+        const m = mine[mid];
+        if (r.clock < m.clock) hi = mid - 1;
+        else if (r.clock >= m.clock + m.len) lo = mid + 1;
+        else {
+          covered = r.clock + r.len <= m.clock + m.len;
+          break;
+        }
+      }
+      if (!covered) return false;
+    }
+  }
+  return true;
+}
+
+export class Room {
+  readonly conns = new Set<CollabConnection>();
+  readonly awareness: awarenessProtocol.Awareness;
+  state: RoomState = 'open';
+  /** Resolves when the room has unloaded. */
+  readonly closed: Promise<void>;
+  private resolveClosed!: () => void;
+
+  private refs = 0;
+  private unloadTimer: NodeJS.Timeout | null = null;
+  private readonly pending: PendingWrite[] = [];
+  private draining: Promise<void> | null = null;
+  private lastUpdateId: number;
+  private sinceCompaction: number;
+  /** An upper bound on the encoded document size (exact after each compaction). */
+  private approxBytes: number;
+  private lastSnapshot: DesignSnapshot | null;
+  /** Which connection speaks for each awareness client id. */
+  private readonly awarenessOwners = new Map<number, CollabConnection>();
+
+  private constructor(
+    readonly id: string,
+    readonly doc: Y.Doc,
+    private readonly deps: RoomDeps,
+    stored: { lastUpdateId: number; pendingUpdates: number },
+    private readonly onIdle: (room: Room) => void,
+  ) {
+    this.closed = new Promise((r) => (this.resolveClosed = r));
+    this.lastUpdateId = stored.lastUpdateId;
+    this.sinceCompaction = stored.pendingUpdates;
+    this.approxBytes = Y.encodeStateAsUpdate(doc).byteLength;
+    this.lastSnapshot = designSnapshot(doc);
+    this.awareness = new awarenessProtocol.Awareness(doc);
+    this.awareness.setLocalState(null);
+    this.awareness.on('update', this.onAwarenessUpdate);
+    doc.on('update', this.onDocUpdate);
+  }
+
+  static async load(id: string, deps: RoomDeps, onIdle: (room: Room) => void): Promise<Room> {
+    const stored = await loadRoomDocument(deps.knex, id);
+    if (stored.skippedUpdates > 0) deps.logger.warn({ roomId: id, skipped: stored.skippedUpdates }, 'skipped damaged room updates while loading');
+    return new Room(id, stored.doc, deps, stored, onIdle);
+  }
+
+  // ---- lifetime ----
+
+  retain(): void {
+    this.refs++;
+    if (this.unloadTimer) clearTimeout(this.unloadTimer);
+    this.unloadTimer = null;
+  }
+
+  release(): void {
+    this.refs = Math.max(0, this.refs - 1);
+    if (this.refs > 0 || this.state !== 'open') return;
+    this.unloadTimer = setTimeout(() => {
+      this.unloadTimer = null;
+      if (this.refs === 0 && this.state === 'open') this.onIdle(this);
+    }, this.deps.limits.unloadDelayMs);
+    this.unloadTimer.unref();
+  }
+
+  /** Start serving a socket: send sync step 1 and the awareness states already known. */
+  attach(conn: CollabConnection): void {
+    this.conns.add(conn);
+    conn.whenClosed(() => this.detach(conn));
+    if (conn.closed) return;
+    conn.send(syncStep1Message(this.doc));
+    const states = [...this.awareness.getStates().keys()];
+    if (states.length > 0) conn.send(awarenessMessage(this.awareness, states));
+  }
+
+  private detach(conn: CollabConnection): void {
+    if (!this.conns.delete(conn)) return;
+    const owned = [...conn.awarenessClients].filter((id) => this.awarenessOwners.get(id) === conn);
+    for (const id of owned) this.awarenessOwners.delete(id);
+    if (owned.length > 0 && this.state === 'open') awarenessProtocol.removeAwarenessStates(this.awareness, owned, null);
+    this.release();
+  }
+
+  /** Close every socket, finish queued writes, compact, and free the document. */
+  async unload(opts: { compact: boolean; closeCode?: number; closeReason?: string } = { compact: true }): Promise<void> {
+    if (this.state !== 'open') return this.closed;
+    this.state = 'closing';
+    if (this.unloadTimer) clearTimeout(this.unloadTimer);
+    for (const conn of [...this.conns]) conn.close(opts.closeCode ?? COLLAB_CLOSE.goingAway, opts.closeReason ?? 'the server is restarting');
+    if (!opts.compact) this.pending.length = 0;
+    await this.idle();
+    if (opts.compact && this.sinceCompaction > 0) await this.compact();
+    this.awareness.off('update', this.onAwarenessUpdate);
+    this.awareness.destroy();
+    this.doc.off('update', this.onDocUpdate);
+    this.doc.destroy();
+    this.state = 'closed';
+    this.resolveClosed();
+  }
+
+  /** Resolves when the write queue is empty. */
+  async idle(): Promise<void> {
+    while (this.draining) await this.draining;
+  }
+
+  // ---- messages ----
+
+  receive(conn: CollabConnection, data: Uint8Array): void {
+    if (conn.closed || this.state !== 'open') return;
+    const { limits, logger } = this.deps;
+    if (data.byteLength > limits.maxMessageBytes) {
+      conn.close(COLLAB_CLOSE.tooLarge, `message of ${formatBytes(data.byteLength)} is over the ${formatBytes(limits.maxMessageBytes)} limit`);
+      return;
+    }
+    try {
+      const msg = parseClientMessage(data);
+      switch (msg.kind) {
+        case 'sync-step-1':
+          conn.send(syncStep2Message(this.doc, msg.stateVector));
+          return;
+        case 'sync-step-2':
+        case 'update':
+          if (!conn.canWrite()) {
+            logger.debug({ roomId: this.id, userId: conn.userId, role: conn.role, kind: msg.kind }, 'dropped a document update from a member who may not edit');
+            return;
+          }
+          this.pending.push({ conn, update: msg.update, decoded: decodeDocumentUpdate(msg.update) });
+          this.kick();
+          return;
+        case 'awareness':
+          this.receiveAwareness(conn, msg.update);
+          return;
+        case 'query-awareness':
+          conn.send(awarenessMessage(this.awareness, [...this.awareness.getStates().keys()]));
+          return;
+      }
+    } catch (e) {
+      if (e instanceof ProtocolError) {
+        logger.debug({ roomId: this.id, userId: conn.userId, reason: e.message }, 'closed a room socket that sent a malformed message');
+        conn.close(COLLAB_CLOSE.badMessage, `malformed message: ${e.message}`);
+        return;
+      }
+      logger.warn({ roomId: this.id, userId: conn.userId, err: e }, 'room socket message failed');
+      conn.close(COLLAB_CLOSE.badMessage, 'the message could not be handled');
+    }
+  }
+
+  private receiveAwareness(conn: CollabConnection, update: Uint8Array): void {
+    const { limits, logger } = this.deps;
+    if (update.byteLength > limits.maxAwarenessBytes) {
+      conn.close(COLLAB_CLOSE.tooLarge, `presence update of ${formatBytes(update.byteLength)} is over the ${formatBytes(limits.maxAwarenessBytes)} limit`);
+      return;
+    }
+    const entries = parseAwarenessUpdate(update);
+    let added = 0;
+    for (const e of entries) {
+      const owner = this.awarenessOwners.get(e.clientId);
+      // Another person's presence is not yours to change; your own from an older tab or socket is.
+      if (owner && owner !== conn && owner.userId !== conn.userId) {
+        logger.debug({ roomId: this.id, userId: conn.userId, clientId: e.clientId }, 'dropped an awareness update for a client id held by someone else');
+        return;
+      }
+      if (owner !== conn && e.state !== null) added++;
+    }
+    if (conn.awarenessClients.size + added > limits.maxAwarenessClientsPerConnection) {
+      logger.debug({ roomId: this.id, userId: conn.userId }, 'dropped an awareness update: too many client ids on one socket');
+      return;
+    }
+    awarenessProtocol.applyAwarenessUpdate(this.awareness, update, conn);
+    for (const e of entries) {
+      const owner = this.awarenessOwners.get(e.clientId);
+      if (e.state === null) {
+        if (owner === conn) this.awarenessOwners.delete(e.clientId);
+        conn.awarenessClients.delete(e.clientId);
+      } else if (owner !== conn) {
+        owner?.awarenessClients.delete(e.clientId);
+        this.awarenessOwners.set(e.clientId, conn);
+        conn.awarenessClients.add(e.clientId);
+      }
+    }
+  }
+
+  private readonly onAwarenessUpdate = (changes: { added: number[]; updated: number[]; removed: number[] }): void => {
+    const changed = changes.added.concat(changes.updated, changes.removed);
+    if (changed.length === 0) return;
+    // To every socket, the sender too: the y-websocket client treats 30 s without a message as a dead link.
+    const msg = awarenessMessage(this.awareness, changed);
+    for (const c of this.conns) c.send(msg);
+  };
+
+  private readonly onDocUpdate = (update: Uint8Array, origin: unknown): void => {
+    const msg = updateMessage(update);
+    for (const c of this.conns) if (c !== origin) c.send(msg);
+  };
+
+  // ---- the write queue ----
+
+  private kick(): void {
+    if (this.draining) return;
+    this.draining = this.drain().finally(() => {
+      this.draining = null;
+      if (this.pending.length > 0 && this.state !== 'closed') this.kick();
+    });
+  }
+
+  private async drain(): Promise<void> {
+    const { knex, logger, limits } = this.deps;
+    while (this.pending.length > 0) {
+      const accepted: PendingWrite[] = [];
+      for (const w of this.pending.splice(0)) {
+        if (!w.conn.canWrite()) {
+          if (!w.conn.closed) logger.debug({ roomId: this.id, userId: w.conn.userId }, 'dropped a queued update: the member may no longer edit');
+          continue;
+        }
+        if (updateIsRedundant(this.doc, w.decoded)) continue;
+        if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
+          this.approxBytes = Y.encodeStateAsUpdate(this.doc).byteLength;
+          if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
+            w.conn.close(
+              COLLAB_CLOSE.tooLarge,
+              `the room document would pass its ${formatBytes(limits.maxDocumentBytes)} limit (now ${formatBytes(this.approxBytes)})`,
+            );
+            continue;
+          }
+        }
+        this.approxBytes += w.update.byteLength;
+        accepted.push(w);
+      }
+      if (accepted.length === 0) continue;
+
+      let ids: number[];
+      try {
+        ids = await appendUpdates(
+          knex,
+          this.id,
+          accepted.map((w) => ({ update: w.update, userId: w.conn.userId })),
+        );
+      } catch (e) {
+        logger.error({ roomId: this.id, err: e }, 'could not store room updates; their senders will reconnect and resend');
+        for (const w of accepted) w.conn.close(COLLAB_CLOSE.serverError, 'the update could not be stored; reconnecting');
+        continue;
+      }
+
+      for (let i = 0; i < accepted.length; i++) {
+        const w = accepted[i];
+        try {
+          Y.applyUpdate(this.doc, w.update, w.conn);
+        } catch (e) {
+          logger.warn({ roomId: this.id, userId: w.conn.userId, err: e }, 'a stored update could not be applied');
+          w.conn.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
+        }
+        this.lastUpdateId = ids[i];
+        this.sinceCompaction++;
+        this.describe(w.conn.userId);
+      }
+      if (this.sinceCompaction >= limits.compactEvery) await this.compact();
+    }
+  }
+
+  private describe(userId: string): void {
+    const after = designSnapshot(this.doc);
+    const before = this.lastSnapshot;
+    this.lastSnapshot = after;
+    if (!before || !after || !this.deps.onChanges) return;
+    try {
+      const changes = describeDesignChanges(before, after);
+      if (changes.length > 0) this.deps.onChanges(this.id, userId, changes);
+    } catch (e) {
+      this.deps.logger.warn({ roomId: this.id, err: e }, 'could not describe a room change');
+    }
+  }
+
+  /** Write the in-memory document as the compacted state (called only between writes). */
+  private async compact(): Promise<void> {
+    const state = Y.encodeStateAsUpdate(this.doc);
+    try {
+      await saveRoomState(this.deps.knex, this.id, state, this.lastUpdateId);
+      this.sinceCompaction = 0;
+      this.approxBytes = state.byteLength;
+    } catch (e) {
+      this.deps.logger.warn({ roomId: this.id, err: e }, 'room compaction failed; will retry');
+    }
+  }
+
+  /** A member's role changed (null: removed). */
+  setRole(userId: string, role: CollabConnection['role'] | null): void {
+    for (const conn of [...this.conns]) {
+      if (conn.userId !== userId) continue;
+      conn.roleSetByHub = true;
+      if (role === null) conn.close(COLLAB_CLOSE.forbidden, 'you were removed from this room');
+      else conn.role = role;
+    }
+  }
+}
