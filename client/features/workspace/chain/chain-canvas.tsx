@@ -1,0 +1,333 @@
+/**
+ * The chain canvas: the chain as a schematic, port on the left, load on the right. Click an
+ * element to select it, drag it sideways to reorder, drag its value up or down (or turn the mouse
+ * wheel over it) to tune it live. With the canvas focused: ← → select the neighbour, ↑ ↓ tune
+ * (Shift coarse, Alt fine), Ctrl+← → move the element, Delete removes, Ctrl+D duplicates.
+ */
+import type Konva from 'konva';
+import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
+import { Circle, Group, Layer, Line, Rect, Stage, Text } from 'react-konva';
+import type { Design, Element } from '../../../../shared/rf/design';
+import type { ESeries } from '../../../../shared/rf/eseries';
+import { formatEngineering } from '../../../../shared/rf/units';
+import type { Peer, PresenceCursor } from '../collab/presence-state';
+import { initials } from '../collab/presence-state';
+import { tunableOf } from '../value/tunable';
+import { dragSteps, stepSizeFromModifiers, stepValue, wheelSteps } from '../value/tuning-step';
+import { elementName } from './element-catalog';
+import { elementDescription, elementValueLabel } from './element-summary';
+import { CELL_WIDTH, GROUND_Y, LOAD_WIDTH, PORT_WIDTH, RAIL_Y, chainLayout, dropIndex } from './chain-layout';
+import { ElementSymbol, Ground, INK, LockMark, tintOf } from './element-symbol';
+import { loadSummary } from './load-summary';
+
+export interface ChainCanvasProps {
+  design: Design;
+  /** available width; the canvas scrolls sideways when the chain is longer */
+  width: number;
+  selectedId: string | null;
+  onSelect(id: string | null): void;
+  editable: boolean;
+  /** E-series for stepping lumped values, or null for smooth steps */
+  series: ESeries | null;
+  onTune(id: string, field: string, value: unknown): void;
+  onMove(id: string, index: number): void;
+  onRemove(id: string): void;
+  onDuplicate(id: string): void;
+  peers: Peer[];
+  onCursor(cursor: PresenceCursor | null): void;
+}
+
+const AMBER = '#d9962b';
+const FAINT = '#6c7791';
+
+interface TuneDrag {
+  id: string;
+  startY: number;
+  startValue: number;
+}
+
+export function ChainCanvas(props: ChainCanvasProps) {
+  const { design, selectedId, editable, series } = props;
+  const elements = design.elements;
+  const layout = chainLayout(elements.length);
+  const stageWidth = Math.max(props.width, layout.width);
+  const offsetX = Math.max(0, Math.floor((stageWidth - layout.width) / 2));
+  const latest = useRef(props);
+  latest.current = props;
+  const drag = useRef<TuneDrag | null>(null);
+
+  // Vertical value drags follow the pointer outside the canvas too.
+  useEffect(() => {
+    const move = (ev: PointerEvent) => {
+      const d = drag.current;
+      if (!d) return;
+      const p = latest.current;
+      const el = p.design.elements.find((e) => e.id === d.id);
+      const t = el ? tunableOf(el) : null;
+      if (!t) return;
+      const next = stepValue(d.startValue, dragSteps(ev.clientY - d.startY), {
+        scale: t.scale,
+        size: stepSizeFromModifiers(ev),
+        series: t.preferredValues ? p.series : null,
+      });
+      if (next !== t.current) p.onTune(d.id, t.field, t.fieldValue(next));
+    };
+    const up = () => {
+      drag.current = null;
+      document.body.style.cursor = '';
+    };
+    window.addEventListener('pointermove', move);
+    window.addEventListener('pointerup', up);
+    return () => {
+      window.removeEventListener('pointermove', move);
+      window.removeEventListener('pointerup', up);
+    };
+  }, []);
+
+  const peerSelections = useMemo(() => {
+    const byId = new Map<string, Peer[]>();
+    for (const peer of props.peers) if (peer.selection) byId.set(peer.selection, [...(byId.get(peer.selection) ?? []), peer]);
+    return byId;
+  }, [props.peers]);
+
+  const tuneBy = (e: Element, steps: number, mods: { shiftKey?: boolean; altKey?: boolean }) => {
+    const t = tunableOf(e);
+    if (!t || !editable) return;
+    const next = stepValue(t.current, steps, { scale: t.scale, size: stepSizeFromModifiers(mods), series: t.preferredValues ? series : null });
+    if (next !== t.current) props.onTune(e.id, t.field, t.fieldValue(next));
+  };
+
+  const onKeyDown = (ev: KeyboardEvent<HTMLDivElement>) => {
+    const index = elements.findIndex((e) => e.id === selectedId);
+    const selected = index >= 0 ? elements[index] : null;
+    const ctrl = ev.ctrlKey || ev.metaKey;
+    // ← is toward the port (higher chain index), → toward the load.
+    if ((ev.key === 'ArrowLeft' || ev.key === 'ArrowRight') && !ctrl) {
+      if (!elements.length) return;
+      const towardPort = ev.key === 'ArrowLeft';
+      const next = index < 0 ? (towardPort ? 0 : elements.length - 1) : Math.max(0, Math.min(elements.length - 1, index + (towardPort ? 1 : -1)));
+      props.onSelect(elements[next].id);
+      ev.preventDefault();
+      return;
+    }
+    if (!selected) return;
+    if ((ev.key === 'ArrowUp' || ev.key === 'ArrowDown') && editable) {
+      tuneBy(selected, ev.key === 'ArrowUp' ? 1 : -1, ev);
+      ev.preventDefault();
+    } else if ((ev.key === 'ArrowLeft' || ev.key === 'ArrowRight') && ctrl && editable) {
+      const target = index + (ev.key === 'ArrowLeft' ? 1 : -1);
+      if (target >= 0 && target < elements.length) props.onMove(selected.id, target);
+      ev.preventDefault();
+    } else if ((ev.key === 'Delete' || ev.key === 'Backspace') && editable) {
+      props.onRemove(selected.id);
+      ev.preventDefault();
+    } else if (ev.key.toLowerCase() === 'd' && ctrl && editable) {
+      props.onDuplicate(selected.id);
+      ev.preventDefault();
+    } else if (ev.key === 'Escape') {
+      props.onSelect(null);
+    }
+  };
+
+  const pointer = (stage: Konva.Stage | null): PresenceCursor | null => {
+    const p = stage?.getPointerPosition();
+    return p ? { area: 'canvas', x: p.x - offsetX, y: p.y } : null;
+  };
+
+  const remoteCursors = props.peers.filter((p): p is Peer & { cursor: { area: 'canvas'; x: number; y: number } } => p.cursor?.area === 'canvas');
+  const selected = elements.find((e) => e.id === selectedId);
+
+  return (
+    <div
+      className="chain-canvas h-full overflow-x-auto overflow-y-hidden rounded-md outline-offset-[-3px]"
+      tabIndex={0}
+      role="group"
+      aria-roledescription="chain canvas"
+      aria-label={`Chain, port on the left, load on the right: ${elements.length ? elements.map((e) => elementName(e)).join(', ') : 'no elements yet'}`}
+      aria-describedby="chain-canvas-help"
+      onKeyDown={onKeyDown}
+    >
+      <p id="chain-canvas-help" className="sr-only">
+        Left and right arrows select an element.{' '}
+        {editable ? 'Up and down arrows tune it (Shift coarse, Alt fine), Control with left or right moves it, Delete removes it, Control D duplicates it.' : 'You are watching: the chain cannot be edited here.'}
+      </p>
+      <p className="sr-only" aria-live="polite">
+        {selected ? `Selected ${elementDescription(selected)}` : ''}
+      </p>
+      <Stage
+        width={stageWidth}
+        height={layout.height}
+        onMouseMove={(e) => props.onCursor(pointer(e.target.getStage()))}
+        onMouseLeave={() => props.onCursor(null)}
+        onClick={(e) => {
+          if (e.target === e.target.getStage()) props.onSelect(null);
+        }}
+      >
+        <Layer x={offsetX}>
+          <Rect width={layout.width} height={layout.height} fill="#fffdf8" onClick={() => props.onSelect(null)} />
+          <PortSymbol design={design} />
+          <LoadSymbol design={design} x={layout.loadX} />
+          {elements.length === 0 && (
+            <>
+              <Line points={[PORT_WIDTH - 20, RAIL_Y, layout.loadX + 20, RAIL_Y]} stroke={INK} strokeWidth={2} listening={false} />
+              <Text
+                x={PORT_WIDTH + 4}
+                y={RAIL_Y + 26}
+                width={Math.max(120, layout.loadX - PORT_WIDTH - 8)}
+                text="No network yet"
+                fontSize={12}
+                fill={FAINT}
+                listening={false}
+              />
+            </>
+          )}
+          {elements.map((e, index) => {
+            const x = layout.cellX(index);
+            const isSelected = e.id === selectedId;
+            const others = peerSelections.get(e.id) ?? [];
+            return (
+              <Group
+                key={e.id}
+                x={x}
+                y={0}
+                draggable={editable}
+                dragBoundFunc={(pos) => ({ x: pos.x, y: 0 })}
+                onDragStart={() => props.onSelect(e.id)}
+                onDragEnd={(ev) => {
+                  const node = ev.target;
+                  const target = dropIndex(node.x(), elements.length);
+                  node.position({ x, y: 0 });
+                  if (target !== index) props.onMove(e.id, target);
+                }}
+                onClick={() => props.onSelect(e.id)}
+                onTap={() => props.onSelect(e.id)}
+                onWheel={(ev) => {
+                  if (!editable || !tunableOf(e)) return;
+                  ev.evt.preventDefault();
+                  props.onSelect(e.id);
+                  tuneBy(e, wheelSteps(ev.evt.deltaY), ev.evt);
+                }}
+                onMouseEnter={(ev) => {
+                  const c = ev.target.getStage()?.container();
+                  if (c && editable) c.style.cursor = 'grab';
+                }}
+                onMouseLeave={(ev) => {
+                  const c = ev.target.getStage()?.container();
+                  if (c) c.style.cursor = '';
+                }}
+              >
+                <Rect
+                  x={3}
+                  y={3}
+                  width={CELL_WIDTH - 6}
+                  height={GROUND_Y + 16}
+                  cornerRadius={8}
+                  fill={isSelected ? '#f8ead0' : 'rgba(0,0,0,0)'}
+                  stroke={isSelected ? AMBER : undefined}
+                  strokeWidth={isSelected ? 2 : 0}
+                />
+                {others.map((peer, i) => (
+                  <Group key={peer.clientId}>
+                    <Rect
+                      x={6 + i * 3}
+                      y={6 + i * 3}
+                      width={CELL_WIDTH - 12 - i * 6}
+                      height={GROUND_Y + 10 - i * 6}
+                      cornerRadius={7}
+                      stroke={peer.user.color}
+                      strokeWidth={2}
+                      dash={[6, 4]}
+                      listening={false}
+                    />
+                    <Rect x={CELL_WIDTH - 30 - i * 22} y={GROUND_Y + 2} width={20} height={14} cornerRadius={7} fill={peer.user.color} listening={false} />
+                    <Text
+                      x={CELL_WIDTH - 30 - i * 22}
+                      y={GROUND_Y + 4}
+                      width={20}
+                      align="center"
+                      text={initials(peer.user.name)}
+                      fontSize={9}
+                      fontStyle="bold"
+                      fill="#ffffff"
+                      listening={false}
+                    />
+                  </Group>
+                ))}
+                <ElementSymbol element={e} />
+                <Text x={0} y={8} width={CELL_WIDTH} align="center" text={elementName(e)} fontSize={13} fontStyle="bold" fill={tintOf(e)} listening={false} />
+                <Text
+                  x={8}
+                  y={24}
+                  width={CELL_WIDTH - 16}
+                  height={16}
+                  align="center"
+                  text={elementValueLabel(e)}
+                  fontSize={12}
+                  fontFamily="ui-monospace, 'DejaVu Sans Mono', monospace"
+                  fill={INK}
+                  wrap="none"
+                  ellipsis
+                  onMouseEnter={(ev) => {
+                    const c = ev.target.getStage()?.container();
+                    if (c && editable && tunableOf(e)) c.style.cursor = 'ns-resize';
+                  }}
+                  onMouseDown={(ev) => {
+                    const t = tunableOf(e);
+                    if (!editable || !t) return;
+                    ev.cancelBubble = true;
+                    ev.evt.preventDefault();
+                    props.onSelect(e.id);
+                    drag.current = { id: e.id, startY: ev.evt.clientY, startValue: t.current };
+                    document.body.style.cursor = 'ns-resize';
+                  }}
+                />
+                {e.locked && <LockMark x={CELL_WIDTH - 22} y={8} />}
+              </Group>
+            );
+          })}
+          {remoteCursors.map((peer) => (
+            <Group key={peer.clientId} x={peer.cursor.x} y={peer.cursor.y} listening={false}>
+              <Line points={[0, 0, 0, 14, 4, 10, 10, 10]} closed fill={peer.user.color} stroke="#ffffff" strokeWidth={1} />
+              <Text x={10} y={10} text={peer.user.name} fontSize={11} fill={peer.user.color} fontStyle="bold" />
+            </Group>
+          ))}
+        </Layer>
+      </Stage>
+    </div>
+  );
+}
+
+function PortSymbol({ design }: { design: Design }) {
+  const [re, im] = design.port?.impedance ?? [design.referenceOhms, 0];
+  const zText = im === 0 ? formatEngineering(re, 'Ω', { digits: 3 }) : `${formatEngineering(re, 'Ω', { digits: 3 })}, j${formatEngineering(im, '', { digits: 3 })}`;
+  const cx = 44;
+  const cy = (RAIL_Y + GROUND_Y) / 2 + 4;
+  return (
+    <Group listening={false}>
+      <Text x={0} y={8} width={PORT_WIDTH - 8} align="center" text="Port" fontSize={13} fontStyle="bold" fill={INK} />
+      <Text x={0} y={24} width={PORT_WIDTH - 8} align="center" text={zText} fontSize={12} fill={INK} />
+      <Line points={[cx, RAIL_Y, PORT_WIDTH, RAIL_Y]} stroke={INK} strokeWidth={2} />
+      <Line points={[cx, RAIL_Y, cx, cy - 16]} stroke={INK} strokeWidth={2} />
+      <Circle x={cx} y={cy} radius={16} stroke={INK} strokeWidth={2} fill="#fffdf8" />
+      <Line points={[cx - 8, cy, cx - 4, cy - 5, cx, cy, cx + 4, cy + 5, cx + 8, cy]} stroke={INK} strokeWidth={1.5} tension={0.4} />
+      <Line points={[cx, cy + 16, cx, GROUND_Y]} stroke={INK} strokeWidth={2} />
+      <Ground x={cx} y={GROUND_Y} />
+    </Group>
+  );
+}
+
+function LoadSymbol({ design, x }: { design: Design; x: number }) {
+  const boxX = x + 30;
+  return (
+    <Group x={0} listening={false}>
+      <Text x={x + 4} y={8} width={LOAD_WIDTH - 8} align="center" text="Load" fontSize={13} fontStyle="bold" fill={INK} />
+      <Text x={x + 4} y={24} width={LOAD_WIDTH - 8} align="center" text={loadSummary(design.load)} fontSize={11} fill={INK} wrap="none" ellipsis />
+      <Line points={[x, RAIL_Y, boxX + 26, RAIL_Y, boxX + 26, RAIL_Y + 20]} stroke={INK} strokeWidth={2} />
+      <Rect x={boxX + 10} y={RAIL_Y + 20} width={32} height={50} stroke={INK} strokeWidth={2} fill="#ece4d4" cornerRadius={3} />
+      <Text x={boxX + 10} y={RAIL_Y + 38} width={32} align="center" text="ZL" fontSize={12} fill={INK} />
+      <Line points={[boxX + 26, RAIL_Y + 70, boxX + 26, GROUND_Y]} stroke={INK} strokeWidth={2} />
+      <Ground x={boxX + 26} y={GROUND_Y} />
+    </Group>
+  );
+}
+
