@@ -6,8 +6,17 @@ import { z } from 'zod';
 import { formatJsonPath } from '../shared/rf/design';
 import { badRequest } from './errors';
 
-function describe(issue: z.core.$ZodIssue): string {
-  if (issue.code === 'invalid_type' && /received undefined/i.test(issue.message)) return 'is required';
+function valueAt(value: unknown, path: readonly PropertyKey[]): unknown {
+  let v = value;
+  for (const key of path) {
+    if (v === null || typeof v !== 'object') return undefined;
+    v = (v as Record<PropertyKey, unknown>)[key];
+  }
+  return v;
+}
+
+function describe(issue: z.core.$ZodIssue, input: unknown): string {
+  if (issue.path.length > 0 && issue.code !== 'custom' && valueAt(input, issue.path) === undefined) return 'is required';
   if (issue.code === 'unrecognized_keys') return `has unknown field(s) ${issue.keys.map((k) => JSON.stringify(k)).join(', ')}`;
   return issue.message;
 }
@@ -18,7 +27,7 @@ export function check<S extends z.ZodType>(schema: S, value: unknown, what = 'bo
   if (r.success) return r.data;
   const issue = r.error.issues[0];
   const field = issue.path.length ? formatJsonPath(issue.path as PropertyKey[]) : what;
-  return badRequestThrow(field, describe(issue));
+  return badRequestThrow(field, describe(issue, value));
 }
 
 function badRequestThrow(field: string, reason: string): never {
