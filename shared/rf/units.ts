@@ -6,8 +6,6 @@
  * part labels; "u", "µ" and "μ" are micro. Resistor-style codes put the prefix where the decimal
  * point goes ("4k7" = 4.7 k, "2R2" = 2.2, "R47" = 0.47, "4n7" = 4.7 n).
  */
-import { parse as mathParse, type MathNode } from 'mathjs';
-
 export type Unit = 'H' | 'F' | 'Ω' | 'Hz' | 'm' | 'W' | 'V' | 'A' | 'dB' | 'S' | '';
 
 /** Text that is not an engineering value, or a value in the wrong unit. */
@@ -126,7 +124,7 @@ function prefixExponent(text: string, prefix: string, unit: Unit | undefined): n
  */
 export function parseEngineering(text: string, unit?: Unit): number {
   if (typeof text !== 'string') throw new UnitError(String(text), 'expected a value as text');
-  const src = text.trim();
+  const src = text.trim().replace(/\u2212/g, '-');
   if (src === '') throw new UnitError(text, `enter a value${unit ? ` in ${describe(unit)}` : ''}`);
   if (src.length > 200) throw new UnitError(text.slice(0, 40), 'the value is too long');
 
@@ -148,6 +146,7 @@ export function parseEngineering(text: string, unit?: Unit): number {
     return finiteOrThrow(text, value);
   }
 
+  if (/\d,\d/.test(src)) throw new UnitError(text, `"${text}": use a decimal point, not a comma`);
   const num = NUMBER.exec(src);
   if (!num) throw new UnitError(text, `"${text}" is not a number${unit ? ` in ${describe(unit)}` : ''}`);
   const suffix = src.slice(num[0].length).trim();
@@ -202,7 +201,7 @@ function trimmed(x: number, digits: number): string {
  */
 export function formatEngineering(value: number, unit: Unit = '', opts: { digits?: number } = {}): string {
   const digits = Math.min(15, Math.max(1, Math.round(opts.digits ?? 3)));
-  const join = (num: string, prefix: string) => (unit === '' ? `${num}${prefix ? ` ${prefix}` : ''}` : `${num} ${prefix}${unit}`);
+  const join = (num: string, prefix: string) => (unit === '' ? `${num}${prefix}` : `${num} ${prefix}${unit}`);
   if (typeof value !== 'number' || !Number.isFinite(value)) return '—';
   if (value === 0) return join('0', '');
   if (NO_PREFIX.has(unit)) return join(trimmed(value, digits), '');
@@ -226,16 +225,34 @@ export function formatEngineering(value: number, unit: Unit = '', opts: { digits
   return join(`${value < 0 ? '-' : ''}${trimmed(mant, digits)}`, entry[1]);
 }
 
-const EXPRESSION_FUNCTIONS = new Set(['sqrt', 'log', 'log10', 'exp', 'sin', 'cos', 'tan', 'asin', 'acos', 'atan', 'abs', 'pow', 'min', 'max']);
-const EXPRESSION_CONSTANTS = new Set(['pi', 'e']);
-/** A number with an attached prefix and/or unit ("2.44G", "50Ω", "4k7", "3.3nH"), to be replaced before mathjs sees it. */
-const VALUE_TOKEN = /(?<![\w.])(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?(?:[A-Za-zµμΩ\u2126]+\d*)?(?![\w.])/g;
+const FUNCTIONS: Record<string, { arity: number; fn: (...args: number[]) => number }> = {
+  sqrt: { arity: 1, fn: Math.sqrt },
+  ln: { arity: 1, fn: Math.log },
+  log: { arity: 1, fn: Math.log },
+  log10: { arity: 1, fn: Math.log10 },
+  exp: { arity: 1, fn: Math.exp },
+  sin: { arity: 1, fn: Math.sin },
+  cos: { arity: 1, fn: Math.cos },
+  tan: { arity: 1, fn: Math.tan },
+  atan: { arity: 1, fn: Math.atan },
+  abs: { arity: 1, fn: Math.abs },
+  pow: { arity: 2, fn: Math.pow },
+  min: { arity: 2, fn: Math.min },
+  max: { arity: 2, fn: Math.max },
+};
+const CONSTANTS: Record<string, number> = { pi: Math.PI, π: Math.PI, e: Math.E };
+
+/** A number with an optional attached prefix/unit or resistor code: "2.44G", "50Ω", "4k7", "3.3nH", "1e-9". */
+const VALUE_AT = /(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?(?:[A-Za-zµμΩ\u2126]+\d*)?/y;
+const NAME_AT = /[A-Za-zπ_][A-Za-z0-9_]*/y;
 
 /**
- * Evaluates a simple arithmetic expression of engineering values, such as "1/(2*pi*2.44G*50)".
- * Values may carry prefixes and units ("2.44 GHz" needs no space removed: "2.44GHz"); units inside
- * an expression are not checked against each other, only dropped. When the whole text is a single
- * value, `unit` is checked as in `parseEngineering`.
+ * Evaluates a simple arithmetic expression of engineering values, such as "1/(2*pi*2.44G*50)":
+ * numbers (with prefixes, units or resistor codes attached: "2.44G", "2.44 GHz", "4k7"), + − * / ^,
+ * parentheses, pi, e and sqrt, ln/log, log10, exp, sin, cos, tan, atan, abs, pow, min, max.
+ * Units inside an expression are dropped, not checked against each other; when the whole text is a
+ * single value, `unit` is checked as in `parseEngineering`. A small recursive-descent parser (no
+ * general expression library), so nothing else can be reached from the text.
  */
 export function evaluateExpression(text: string, unit?: Unit): number {
   if (typeof text !== 'string' || text.trim() === '') throw new UnitError(String(text), 'enter a value or an expression');
@@ -244,59 +261,107 @@ export function evaluateExpression(text: string, unit?: Unit): number {
     return parseEngineering(text, unit);
   } catch (err) {
     if (!(err instanceof UnitError)) throw err;
-    if (!/[-+*/^()]/.test(text.trim().replace(/^[+-]/, '').replace(/[eE][+-]/g, ''))) throw err;
+    const rest = text.trim().replace(/^[+-]/, '').replace(/\d[eE][+-]/g, '');
+    if (!/[-+*/^()]/.test(rest)) throw err;
   }
-  // Join a number to a unit written after a space ("2.44 GHz" -> "2.44GHz") so it is one value.
-  const joined = text.replace(/(\d)\s+(?=(?:meg|[fpnuµμmkKMGT])?(?:Hz|H|F|Ω|\u2126|ohms?|W|V|A|S)(?![A-Za-z]))/g, '$1');
-  let failure: string | null = null;
-  const replaced = joined.replace(VALUE_TOKEN, (token) => {
-    try {
-      return `(${parseEngineering(token).toString()})`;
-    } catch (err) {
-      failure ??= err instanceof Error ? err.message : String(err);
-      return token;
+  // Join a number to a unit written after a space ("2.44 GHz" -> "2.44GHz") so it reads as one value.
+  const src = text
+    .replace(/\u2212/g, '-')
+    .replace(/(\d)\s+(?=(?:meg|[fpnuµμmkKMGT])?(?:Hz|H|F|Ω|\u2126|ohms?|W|V|A|S|dB)(?![A-Za-z]))/g, '$1');
+  let pos = 0;
+  const fail = (why: string): never => {
+    throw new UnitError(text, `"${text.trim()}": ${why}`);
+  };
+  const skip = () => {
+    while (pos < src.length && /\s/.test(src[pos])) pos++;
+  };
+  const peek = () => {
+    skip();
+    return src[pos];
+  };
+  const expect = (ch: string) => {
+    if (peek() !== ch) fail(pos >= src.length ? `expected "${ch}" at the end` : `expected "${ch}" at "${src.slice(pos, pos + 10)}"`);
+    pos++;
+  };
+  const primary = (): number => {
+    const ch = peek();
+    if (ch === undefined) return fail('the expression ends too early');
+    if (ch === '(') {
+      pos++;
+      const v = sum();
+      expect(')');
+      return v;
     }
-  });
-  if (failure) throw new UnitError(text, failure);
-  let node: MathNode;
-  try {
-    node = mathParse(replaced);
-  } catch {
-    throw new UnitError(text, `"${text}" is not a valid expression`);
-  }
-  node.traverse((n) => {
-    if (failure) return;
-    const t = n.type;
-    if (t === 'FunctionNode') {
-      const name = (n as unknown as { fn: { name?: string } }).fn.name ?? '';
-      if (!EXPRESSION_FUNCTIONS.has(name)) failure = `unknown function "${name}"`;
-    } else if (t === 'SymbolNode') {
-      const name = (n as unknown as { name: string }).name;
-      const parent = isFunctionName(node, n);
-      if (!parent && !EXPRESSION_CONSTANTS.has(name)) failure = `unknown name "${name}"`;
-    } else if (t === 'OperatorNode') {
-      const op = (n as unknown as { fn: string }).fn;
-      if (!['add', 'subtract', 'multiply', 'divide', 'unaryMinus', 'unaryPlus', 'pow'].includes(op)) failure = `operator "${(n as unknown as { op: string }).op}" is not allowed`;
-    } else if (t !== 'ConstantNode' && t !== 'ParenthesisNode') {
-      failure = 'only numbers, + - * / ^, parentheses, pi, e and simple functions are allowed';
+    VALUE_AT.lastIndex = pos;
+    const num = VALUE_AT.exec(src);
+    if (num) {
+      pos += num[0].length;
+      try {
+        return parseEngineering(num[0]);
+      } catch (err) {
+        return fail(err instanceof UnitError ? err.reason.replace(/^"[^"]*":?\s*/, '') || `bad value "${num[0]}"` : `bad value "${num[0]}"`);
+      }
     }
-  });
-  if (failure) throw new UnitError(text, `"${text}": ${failure}`);
-  let value: unknown;
-  try {
-    value = node.compile().evaluate({});
-  } catch (err) {
-    throw new UnitError(text, `"${text}" could not be evaluated${err instanceof Error ? `: ${err.message}` : ''}`);
-  }
-  if (typeof value !== 'number' || !Number.isFinite(value)) throw new UnitError(text, `"${text}" does not give a finite number`);
+    NAME_AT.lastIndex = pos;
+    const name = NAME_AT.exec(src);
+    if (name) {
+      pos += name[0].length;
+      const id = name[0];
+      if (peek() === '(') {
+        const f = FUNCTIONS[id];
+        if (!f) return fail(`unknown function "${id}"`);
+        pos++;
+        const args = [sum()];
+        while (peek() === ',') {
+          pos++;
+          args.push(sum());
+        }
+        expect(')');
+        if (args.length !== f.arity) fail(`${id} takes ${f.arity} argument${f.arity === 1 ? '' : 's'}`);
+        return f.fn(...args);
+      }
+      if (id in CONSTANTS) return CONSTANTS[id];
+      return fail(`unknown name "${id}"`);
+    }
+    return fail(`unexpected "${ch}"`);
+  };
+  const unary = (): number => {
+    const ch = peek();
+    if (ch === '-' || ch === '+') {
+      pos++;
+      const v = unary();
+      return ch === '-' ? -v : v;
+    }
+    return power();
+  };
+  const power = (): number => {
+    const base = primary();
+    if (peek() === '^') {
+      pos++;
+      return base ** unary();
+    }
+    return base;
+  };
+  const product = (): number => {
+    let v = unary();
+    for (let ch = peek(); ch === '*' || ch === '/'; ch = peek()) {
+      pos++;
+      const r = unary();
+      v = ch === '*' ? v * r : v / r;
+    }
+    return v;
+  };
+  const sum = (): number => {
+    let v = product();
+    for (let ch = peek(); ch === '+' || ch === '-'; ch = peek()) {
+      pos++;
+      const r = product();
+      v = ch === '+' ? v + r : v - r;
+    }
+    return v;
+  };
+  const value = sum();
+  if (peek() !== undefined) fail(`unexpected "${src.slice(pos, pos + 10)}"`);
+  if (!Number.isFinite(value)) fail('does not give a finite number');
   return value;
-}
-
-/** True when `symbol` is the name of a function call in `root` (sqrt in "sqrt(2)"). */
-function isFunctionName(root: MathNode, symbol: MathNode): boolean {
-  let found = false;
-  root.traverse((n) => {
-    if (n.type === 'FunctionNode' && (n as unknown as { fn: MathNode }).fn === symbol) found = true;
-  });
-  return found;
 }
