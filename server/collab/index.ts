@@ -164,7 +164,8 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
           conn.close(COLLAB_CLOSE.badMessage, 'text frames are not part of the protocol');
           return;
         }
-        const buf = Array.isArray(data) ? Buffer.concat(data) : data instanceof ArrayBuffer ? new Uint8Array(data) : data;
+        // An exact-size copy: a view into a larger socket buffer would let a bad length read past the message.
+        const buf = Array.isArray(data) ? new Uint8Array(Buffer.concat(data)) : new Uint8Array(data);
         r.receive(conn, buf);
       });
       r.attach(conn);
