@@ -14,6 +14,8 @@
 import type { Design } from '../../../../shared/rf/design';
 import { engineCore as defaultCore, type EngineCore } from './engine-core';
 import type { AnalysisResult, ImpedancePath, MatchResult, RefineResult, YieldResult } from './engine-types';
+import { abortError } from './abort-error';
+import { createWorkerEngineClient } from './worker-engine-client';
 
 export interface EngineClient {
   analyze(design: Design): Promise<{ result: AnalysisResult; path: ImpedancePath }>;
@@ -33,11 +35,7 @@ export interface EngineClient {
   readonly mode: 'worker' | 'main-thread';
 }
 
-export function abortError(): Error {
-  const e = new Error('The run was cancelled.');
-  e.name = 'AbortError';
-  return e;
-}
+export { abortError };
 
 /** The same API, computed on the calling thread. */
 export function createMainThreadEngineClient(core: EngineCore = defaultCore): EngineClient {
@@ -69,9 +67,14 @@ export function createMainThreadEngineClient(core: EngineCore = defaultCore): En
 
 let shared: EngineClient | null = null;
 
-/** The room screen's one engine client (created on first use). */
+/** The room screen's one engine client (created on first use): workers where the browser has them. */
 export function getEngineClient(): EngineClient {
-  if (!shared) shared = createMainThreadEngineClient();
+  if (shared) return shared;
+  const local = createMainThreadEngineClient();
+  shared =
+    typeof Worker === 'undefined'
+      ? local
+      : createWorkerEngineClient(() => new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'matchloom-engine' }), local);
   return shared;
 }
 

@@ -2,8 +2,11 @@
  * The engine commands the worker and the main-thread fallback both run: thin, synchronous wrappers
  * over shared/rf (the same pure code everywhere). The worker file only routes calls to these.
  */
+import { analyze } from '../../../../shared/rf/analyze';
 import type { Design } from '../../../../shared/rf/design';
-import type { AnalysisResult, ImpedancePath, MatchResult, RefineResult, YieldResult } from './engine-types';
+import { findMatches } from '../../../../shared/rf/match';
+import type { AnalysisResult, ImpedancePath, MatchOptions, MatchResult, RefineResult, YieldResult } from './engine-types';
+import { impedancePathOf } from './path-adapter';
 
 export interface EngineCore {
   analyze(design: Design): { result: AnalysisResult; path: ImpedancePath };
@@ -22,8 +25,13 @@ const notYet = (what: string): never => {
 };
 
 export const engineCore: EngineCore = {
-  analyze: () => notYet('analysis engine'),
-  findMatches: () => notYet('match finder'),
+  analyze(design) {
+    const result = analyze(design);
+    return { result, path: impedancePathOf(design, result) };
+  },
+  findMatches(design, opts) {
+    return findMatches(design, (opts ?? {}) as MatchOptions);
+  },
   refine: () => notYet('refine'),
   yieldRun: () => notYet('yield run'),
 };

@@ -10,30 +10,10 @@
  * `[re0, im0, re1, im1, ...]` `Float64Array`s.
  */
 import type { Complex, Design } from '../../../../shared/rf/design';
+export type { AnalysisResult, Stage } from '../../../../shared/rf/analyze';
+export type { MatchCandidate, MatchOptions, MatchResult } from '../../../../shared/rf/match';
 
 export type { Complex, Design };
-
-export interface Stage {
-  /** "load" or the id of the element after which this impedance is seen */
-  after: string;
-  z: Complex;
-}
-
-export interface AnalysisResult {
-  frequenciesHz: Float64Array;
-  zin: Float64Array;
-  gamma: Float64Array;
-  vswr: Float64Array;
-  returnLossDb: Float64Array;
-  mismatchLossDb: Float64Array;
-  powerToLoad: Float64Array;
-  s: { s11: Float64Array; s21: Float64Array; s12: Float64Array; s22: Float64Array };
-  stagesAtCenter: Stage[];
-  bandwidth: { lowHz: number; highHz: number; fractional: number } | null;
-  worstInBand: { vswr: number | null; returnLossDb: number };
-  limit: { model: string; maxFractional: number; ratio: number } | null;
-  stressAtCenter?: { id: string; voltagePeak: number; currentPeak: number }[];
-}
 
 /** One element's stretch of the impedance path at the centre frequency: impedances from the stage before to the stage after. */
 export interface PathSegment {
@@ -48,7 +28,6 @@ export interface ImpedancePath {
   segments: PathSegment[];
 }
 
-export type MatchResult = { candidates: { topology: string; elements: Design['elements'] }[] };
 export type RefineResult = { design: Design; worstInBand: { vswr: number | null; returnLossDb: number }; iterations: number };
 export type YieldResult = {
   trials: number;

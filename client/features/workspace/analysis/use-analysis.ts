@@ -10,6 +10,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Design } from '../../../../shared/rf/design';
 import { engineErrorMessage, getEngineClient, type EngineClient } from './engine-client';
 import type { AnalysisResult, ImpedancePath } from './engine-types';
+import { noteResultSource } from './draw-marks';
 import { createLatestScheduler } from './latest-scheduler';
 
 export interface AnalysisState {
@@ -42,9 +43,10 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
     void scheduler.request(design).then((outcome) => {
       if (!alive.current || outcome.status === 'stale') return;
       const pending = scheduler.busy;
-      if (outcome.status === 'done')
+      if (outcome.status === 'done') {
+        noteResultSource(outcome.value.result, outcome.seq, design);
         setState({ result: outcome.value.result, path: outcome.value.path, error: null, pending });
-      else setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending }));
+      } else setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending }));
     });
   }, [design, scheduler]);
 

@@ -1,13 +1,27 @@
 /**
- * FOR THE WORKSPACE ENGINEER: <SmithChart width height design result path ... /> — props below.
- * Types: AnalysisResult / ImpedancePath from ../analysis/engine-types. `view` is controlled when
- * given (then call back through onViewChange), otherwise the chart keeps its own.
- * (Thin first version: the full drawing lands in the following commits; the props are final.)
+ * FOR THE WORKSPACE ENGINEER: <SmithChart width height design result path ... /> (props below).
+ * Types: AnalysisResult / ImpedancePath from ../analysis/engine-types (the engine's own types).
+ * - `view` is controlled when given (the chart then only calls onViewChange); without it the chart
+ *   keeps its own zoom/pan. Wheel zooms about the pointer, drag pans, double-click resets.
+ * - A click on an impedance-path segment calls onSelectElement(id); a click on the band trace calls
+ *   onPickFrequency(hz); a click elsewhere calls onSelectElement(null).
+ * - onCursorMove(Γ) reports the pointer in the Γ plane (null on leave) for presence; `cursors` draws
+ *   other people's pointers.
+ *
+ * Three Konva layers: the grid (cached bitmap, redrawn only on size/view/grid options), the traces
+ * (redrawn synchronously when a new result arrives) and the pointer layer (hover, cursors).
  */
-import { Circle, Layer, Rect, Stage } from 'react-konva';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Circle, Group, Layer, Line, Rect, RegularPolygon, Stage, Text } from 'react-konva';
+import type Konva from 'konva';
 import type { Design } from '../../../../shared/rf/design';
 import type { AnalysisResult, ImpedancePath } from '../analysis/engine-types';
-import { viewFrame } from './geometry';
+import { markDrawn } from '../analysis/draw-marks';
+import { CHART_PALETTE, elementKindColour, elementKindFamily } from './chart-palette';
+import { DEFAULT_VIEW, panView, pixelToGamma, zoomViewAt, type ChartView } from './geometry';
+import { buildGridModel, labelWidth, type GridModel } from './grid-model';
+import { chartReadout, chartSummary, frequencyText, type Readout } from './readout';
+import { buildTraceModel, chartZ0, nearestTracePoint, pathElementAt, traceGammas, type Overlay, type TraceModel } from './trace-model';
 
 export interface ChartCursor {
   userId: string;
@@ -40,16 +54,459 @@ export interface SmithChartProps {
   onPickFrequency?: (hz: number) => void;
 }
 
+const FONT = "'Nunito Sans', ui-sans-serif, system-ui, sans-serif";
+const MONO = "ui-monospace, 'DejaVu Sans Mono', 'Liberation Mono', monospace";
+const ZOOM_STEP = 1.25;
+
+interface Hover {
+  x: number;
+  y: number;
+  gamma: [number, number];
+  hz: number | null;
+  readout: Readout;
+}
+
 export function SmithChart(props: SmithChartProps) {
-  const f = viewFrame(props.width, props.height, props.view);
+  const { width, height, design, result, path } = props;
+  const [ownView, setOwnView] = useState<ChartView>(DEFAULT_VIEW);
+  const view = props.view ?? ownView;
+  const setView = useCallback(
+    (v: ChartView) => {
+      if (!props.view) setOwnView(v);
+      props.onViewChange?.(v);
+    },
+    [props],
+  );
+
+  const grid = useMemo(
+    () => buildGridModel({ width, height, view, showAdmittance: props.showAdmittance, showQ: props.showQ }),
+    [width, height, view.zoom, view.cx, view.cy, props.showAdmittance, (props.showQ ?? []).join(',')],
+  );
+  const trace = useMemo(
+    () =>
+      buildTraceModel({
+        width,
+        height,
+        view,
+        design,
+        result,
+        path,
+        selectedElementId: props.selectedElementId,
+        envelope: props.envelope,
+        compare: props.compare,
+        preview: props.preview,
+        cursors: props.cursors,
+      }),
+    [width, height, view.zoom, view.cx, view.cy, design, result, path, props.selectedElementId, props.envelope, props.compare, props.preview, props.cursors],
+  );
+
+  const gridGroup = useRef<Konva.Group>(null);
+  const gridLayer = useRef<Konva.Layer>(null);
+  const traceLayer = useRef<Konva.Layer>(null);
+
+  // Cache the grid as one bitmap after it changes (and again once the web font has loaded).
+  useLayoutEffect(() => {
+    const g = gridGroup.current;
+    if (!g) return;
+    g.clearCache();
+    g.cache({ pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 });
+    gridLayer.current?.batchDraw();
+  }, [grid]);
+  useEffect(() => {
+    if (typeof document === 'undefined' || !document.fonts) return;
+    let live = true;
+    void document.fonts.ready.then(() => {
+      if (!live || !gridGroup.current) return;
+      gridGroup.current.clearCache();
+      gridGroup.current.cache({ pixelRatio: window.devicePixelRatio || 1 });
+      gridLayer.current?.batchDraw();
+    });
+    return () => {
+      live = false;
+    };
+  }, []);
+
+  // Draw the traces now rather than on the next animation frame, and tell the bench.
+  useLayoutEffect(() => {
+    traceLayer.current?.draw();
+    markDrawn('chart', result);
+  }, [trace, result]);
+
+  // ---- pointer: hover read-out, zoom, pan, clicks -------------------------------------------
+  const box = useRef<HTMLDivElement>(null);
+  const [hover, setHover] = useState<Hover | null>(null);
+  const drag = useRef<{ x: number; y: number; view: ChartView; moved: boolean; id: number } | null>(null);
+  const latest = useRef({ trace, view, props });
+  latest.current = { trace, view, props };
+
+  const local = (e: { clientX: number; clientY: number }): [number, number] => {
+    const r = box.current?.getBoundingClientRect();
+    return r ? [e.clientX - r.left, e.clientY - r.top] : [e.clientX, e.clientY];
+  };
+
+  const hoverAt = useCallback(
+    (px: number, py: number) => {
+      const { trace: t, props: p } = latest.current;
+      const z0 = chartZ0(p.design);
+      const near = nearestTracePoint(t, px, py, 10);
+      let gamma = pixelToGamma([px, py], t.frame);
+      let hz: number | null = null;
+      let x = px;
+      let y = py;
+      if (near && p.result) {
+        const gs = traceGammas(p.result, z0);
+        gamma = [gs[2 * near.index], gs[2 * near.index + 1]];
+        hz = near.hz;
+        x = t.hit!.pixels[2 * near.index];
+        y = t.hit!.pixels[2 * near.index + 1];
+      }
+      p.onCursorMove?.(pixelToGamma([px, py], t.frame));
+      if (!near && Math.hypot(gamma[0], gamma[1]) > 1) {
+        setHover(null);
+        return;
+      }
+      setHover({ x, y, gamma, hz, readout: chartReadout(gamma, z0, hz) });
+    },
+    [],
+  );
+
+  useEffect(() => {
+    const el = box.current;
+    if (!el) return;
+    const onWheel = (e: WheelEvent) => {
+      e.preventDefault();
+      const { view: v, props: p } = latest.current;
+      const factor = Math.exp(-e.deltaY * (e.deltaMode === 1 ? 0.05 : 0.0015));
+      const r = el.getBoundingClientRect();
+      const next = zoomViewAt(p.width, p.height, v, [e.clientX - r.left, e.clientY - r.top], factor);
+      if (!p.view) setOwnView(next);
+      p.onViewChange?.(next);
+    };
+    el.addEventListener('wheel', onWheel, { passive: false });
+    return () => el.removeEventListener('wheel', onWheel);
+  }, []);
+
+  const onPointerDown = (e: React.PointerEvent<HTMLDivElement>) => {
+    if (e.button !== 0 || (e.target as HTMLElement).closest('button')) return;
+    const [x, y] = local(e);
+    drag.current = { x, y, view, moved: false, id: e.pointerId };
+    e.currentTarget.setPointerCapture?.(e.pointerId);
+  };
+  const onPointerMove = (e: React.PointerEvent<HTMLDivElement>) => {
+    const [x, y] = local(e);
+    const d = drag.current;
+    if (d && d.id === e.pointerId) {
+      const dx = x - d.x;
+      const dy = y - d.y;
+      if (!d.moved && Math.hypot(dx, dy) < 3) return;
+      d.moved = true;
+      setHover(null);
+      setView(panView(width, height, d.view, dx, dy));
+      return;
+    }
+    hoverAt(x, y);
+  };
+  const onPointerUp = (e: React.PointerEvent<HTMLDivElement>) => {
+    const d = drag.current;
+    drag.current = null;
+    if (!d || d.moved || d.id !== e.pointerId) return;
+    const [x, y] = local(e);
+    const id = pathElementAt(trace, x, y, 7);
+    if (id) {
+      props.onSelectElement?.(id);
+      return;
+    }
+    const near = nearestTracePoint(trace, x, y, 8);
+    if (near && props.onPickFrequency) {
+      props.onPickFrequency(near.hz);
+      return;
+    }
+    props.onSelectElement?.(null);
+  };
+  const onPointerLeave = () => {
+    if (drag.current) return;
+    setHover(null);
+    props.onCursorMove?.(null);
+  };
+
+  const summary = useMemo(() => chartSummary(design, result), [design, result]);
+  const kinds = useMemo(() => legendKinds(trace), [trace]);
+  const readoutText = hover ? readoutSentence(hover.readout) : '';
+
   return (
-    <div role="img" aria-label="Smith chart" style={{ width: props.width, height: props.height }}>
-      <Stage width={props.width} height={props.height}>
-        <Layer listening={false}>
-          <Rect width={props.width} height={props.height} fill="#f6f1e7" />
-          <Circle x={f.cx} y={f.cy} radius={f.radius} stroke="#1e2b47" strokeWidth={1.2} />
-        </Layer>
-      </Stage>
+    <div
+      ref={box}
+      className="relative select-none overflow-hidden rounded-lg"
+      style={{ width, height, touchAction: 'none', background: CHART_PALETTE.paper, cursor: drag.current?.moved ? 'grabbing' : 'crosshair' }}
+      onPointerDown={onPointerDown}
+      onPointerMove={onPointerMove}
+      onPointerUp={onPointerUp}
+      onPointerCancel={() => (drag.current = null)}
+      onPointerLeave={onPointerLeave}
+      onDoubleClick={() => setView(DEFAULT_VIEW)}
+      data-testid="smith-chart"
+    >
+      <div role="img" aria-label={summary}>
+        <Stage width={width} height={height} listening={false}>
+          <Layer ref={gridLayer} listening={false}>
+            <Group ref={gridGroup}>
+              <GridShapes grid={grid} />
+            </Group>
+          </Layer>
+          <Layer ref={traceLayer} listening={false}>
+            <TraceShapes model={trace} />
+          </Layer>
+          <Layer listening={false}>
+            <PointerShapes model={trace} hover={hover} />
+          </Layer>
+        </Stage>
+      </div>
+      {hover ? <ReadoutCard hover={hover} width={width} /> : null}
+      {kinds.length ? <Legend kinds={kinds} compare={props.compare?.label ?? null} preview={!!props.preview} /> : null}
+      <ZoomButtons
+        onZoom={(f) => setView(zoomViewAt(width, height, view, [width / 2, height / 2], f))}
+        onReset={() => setView(DEFAULT_VIEW)}
+        zoomed={view.zoom !== 1 || view.cx !== 0 || view.cy !== 0}
+      />
+      <p className="sr-only" aria-live="polite">
+        {readoutText}
+      </p>
+    </div>
+  );
+}
+
+// ---- grid ----------------------------------------------------------------------------------
+
+function GridShapes({ grid }: { grid: GridModel }) {
+  const f = grid.frame;
+  const clip = (ctx: Konva.Context) => {
+    ctx.beginPath();
+    ctx.arc(f.cx, f.cy, f.radius, 0, Math.PI * 2);
+    ctx.closePath();
+  };
+  const [rim, ...inner] = grid.circles;
+  return (
+    <>
+      <Rect width={grid.width} height={grid.height} fill={CHART_PALETTE.paper} />
+      <Circle x={f.cx} y={f.cy} radius={f.radius} fill="#fbf7ef" />
+      <Group clipFunc={clip}>
+        {inner.map((c, i) => (
+          <Circle key={i} x={c.x} y={c.y} radius={c.r} stroke={c.stroke} strokeWidth={c.width} dash={c.dash} perfectDrawEnabled={false} />
+        ))}
+        <Line points={grid.axis} stroke={CHART_PALETTE.gridMajor} strokeWidth={1} />
+      </Group>
+      {rim ? <Circle x={rim.x} y={rim.y} radius={rim.r} stroke={rim.stroke} strokeWidth={rim.width} /> : null}
+      {grid.labels.map((l, i) => (
+        <Text
+          key={i}
+          x={l.align === 'left' ? l.x : l.align === 'right' ? l.x - labelWidth(l.text) : l.x - labelWidth(l.text) / 2}
+          y={l.y}
+          width={labelWidth(l.text)}
+          align={l.align}
+          text={l.text}
+          fontSize={10}
+          fontFamily={FONT}
+          fill={l.colour}
+        />
+      ))}
+    </>
+  );
+}
+
+// ---- traces --------------------------------------------------------------------------------
+
+function OverlayShapes({ o, colour }: { o: Overlay; colour: string }) {
+  return (
+    <>
+      {o.path.map((pts, i) => (
+        <Line key={`p${i}`} points={pts} stroke={colour} strokeWidth={2} dash={[6, 4]} opacity={0.75} lineCap="round" lineJoin="round" />
+      ))}
+      {o.trace?.outside.map((pts, i) => <Line key={`o${i}`} points={pts} stroke={colour} strokeWidth={1.2} dash={[4, 4]} opacity={0.55} />)}
+      {o.trace ? <Line points={o.trace.inBand} stroke={colour} strokeWidth={3} dash={[8, 5]} opacity={0.7} lineCap="round" lineJoin="round" /> : null}
+    </>
+  );
+}
+
+function TraceShapes({ model }: { model: TraceModel }) {
+  const shapes: ReactNode[] = [];
+  if (model.envelope) shapes.push(<Line key="env" points={model.envelope} closed fill={CHART_PALETTE.envelope} strokeEnabled={false} />);
+  if (model.goal && model.goal.r > 0.5) {
+    shapes.push(
+      <Circle key="goal" x={model.goal.x} y={model.goal.y} radius={model.goal.r} stroke={CHART_PALETTE.goal} strokeWidth={1.4} dash={[7, 5]} />,
+    );
+    const gv = (1 + model.goal.gamma) / (1 - model.goal.gamma);
+    shapes.push(
+      <Text
+        key="goal-label"
+        x={model.goal.x + model.goal.r * 0.7071 + 3}
+        y={model.goal.y - model.goal.r * 0.7071 - 13}
+        text={`goal VSWR ${Number(gv.toPrecision(3))}`}
+        fontSize={10}
+        fontFamily={FONT}
+        fill={CHART_PALETTE.goal}
+      />,
+    );
+  }
+  if (model.compare) shapes.push(<OverlayShapes key="cmp" o={model.compare} colour={CHART_PALETTE.compare} />);
+  if (model.preview) shapes.push(<OverlayShapes key="pre" o={model.preview} colour={CHART_PALETTE.preview} />);
+  if (model.trace) {
+    model.trace.outside.forEach((pts, i) =>
+      shapes.push(<Line key={`tout${i}`} points={pts} stroke={CHART_PALETTE.traceOutOfBand} strokeWidth={1.6} lineCap="round" lineJoin="round" />),
+    );
+    shapes.push(<Line key="tin" points={model.trace.inBand} stroke={CHART_PALETTE.trace} strokeWidth={4.5} lineCap="round" lineJoin="round" />);
+  }
+  for (const s of model.path) {
+    if (s.selected) shapes.push(<Line key={`sel-${s.elementId}`} points={s.points} stroke={CHART_PALETTE.selection} strokeWidth={10} lineCap="round" lineJoin="round" />);
+    shapes.push(<Line key={`seg-${s.elementId}`} points={s.points} stroke={s.colour} strokeWidth={2.6} lineCap="round" lineJoin="round" />);
+  }
+  for (const m of model.stages) {
+    if (m.role === 'load')
+      shapes.push(<Rect key="stage-load" x={m.x - 4.5} y={m.y - 4.5} width={9} height={9} fill={CHART_PALETTE.ink} cornerRadius={1.5} />);
+    else
+      shapes.push(
+        <Circle
+          key={`stage-${m.after}`}
+          x={m.x}
+          y={m.y}
+          radius={m.role === 'port' ? 5.5 : 4}
+          fill={m.role === 'port' ? m.colour : CHART_PALETTE.paper}
+          stroke={m.colour}
+          strokeWidth={2}
+        />,
+      );
+  }
+  for (const b of model.bandMarks) {
+    if (b.role === 'centre')
+      shapes.push(<RegularPolygon key="band-centre" x={b.x} y={b.y} sides={4} radius={6} fill={CHART_PALETTE.traceDeep} stroke={CHART_PALETTE.paper} strokeWidth={1.2} />);
+    else {
+      shapes.push(<Circle key={`band-${b.role}`} x={b.x} y={b.y} radius={5} fill={CHART_PALETTE.paper} stroke={CHART_PALETTE.traceDeep} strokeWidth={2} />);
+      const text = frequencyText(b.hz);
+      const dx = b.x - model.frame.cx;
+      const dy = b.y - model.frame.cy;
+      const d = Math.hypot(dx, dy) || 1;
+      const w = labelWidth(text);
+      const lx = b.x + (dx / d) * 12 - (dx < 0 ? w : 0);
+      const ly = b.y + (dy / d) * 12 - 6;
+      shapes.push(<Text key={`band-${b.role}-t`} x={lx} y={ly} text={text} fontSize={10} fontStyle="bold" fontFamily={FONT} fill={CHART_PALETTE.traceDeep} />);
+    }
+  }
+  return <>{shapes}</>;
+}
+
+function PointerShapes({ model, hover }: { model: TraceModel; hover: Hover | null }) {
+  return (
+    <>
+      {model.cursors.map((c) => (
+        <Group key={c.userId} x={c.x} y={c.y}>
+          <Circle radius={5} fill={c.colour} stroke={CHART_PALETTE.paper} strokeWidth={1.5} />
+          <Rect x={8} y={-8} width={labelWidth(c.name) + 8} height={16} cornerRadius={8} fill={c.colour} opacity={0.92} />
+          <Text x={12} y={-5} text={c.name} fontSize={10} fontStyle="bold" fontFamily={FONT} fill="#fffdf8" />
+        </Group>
+      ))}
+      {hover ? (
+        <Circle x={hover.x} y={hover.y} radius={hover.hz === null ? 3 : 6} stroke={CHART_PALETTE.ink} strokeWidth={1.5} fill={hover.hz === null ? CHART_PALETTE.ink : undefined} />
+      ) : null}
+    </>
+  );
+}
+
+// ---- HTML overlays -------------------------------------------------------------------------
+
+function readoutSentence(r: Readout): string {
+  return `${r.frequency ? `${r.frequency}: ` : ''}z ${r.z}, y ${r.y}, Γ ${r.gamma}, VSWR ${r.vswr}, return loss ${r.returnLoss}`;
+}
+
+function ReadoutCard({ hover, width }: { hover: Hover; width: number }) {
+  const onLeft = hover.x > width / 2;
+  const r = hover.readout;
+  const rows: [string, string][] = [
+    ['z', r.z],
+    ['y', r.y],
+    ['Γ', r.gamma],
+    ['VSWR', r.vswr],
+    ['RL', r.returnLoss],
+  ];
+  return (
+    <div
+      aria-hidden="true"
+      className="pointer-events-none absolute top-2 rounded-md border px-2.5 py-1.5 text-[11px] leading-[1.45] shadow-sm"
+      style={{ [onLeft ? 'left' : 'right']: 8, background: 'rgba(255, 253, 248, 0.94)', borderColor: '#d9cfbd', color: CHART_PALETTE.ink }}
+      data-testid="chart-readout"
+    >
+      {r.frequency ? <div className="font-bold" style={{ color: CHART_PALETTE.traceDeep }}>{r.frequency}</div> : null}
+      {rows.map(([k, v]) => (
+        <div key={k} className="flex gap-2">
+          <span className="w-9" style={{ color: CHART_PALETTE.inkFaint }}>
+            {k}
+          </span>
+          <span style={{ fontFamily: MONO }}>{v}</span>
+        </div>
+      ))}
+    </div>
+  );
+}
+
+const FAMILY_NAMES = { series: 'series part', shunt: 'shunt part', line: 'line section', other: 'other' } as const;
+
+function legendKinds(model: TraceModel): { family: string; colour: string }[] {
+  const seen = new Map<string, string>();
+  for (const s of model.path) {
+    const fam = FAMILY_NAMES[elementKindFamily(s.kind)];
+    if (!seen.has(fam)) seen.set(fam, elementKindColour(s.kind));
+  }
+  return [...seen].map(([family, colour]) => ({ family, colour }));
+}
+
+function Legend({ kinds, compare, preview }: { kinds: { family: string; colour: string }[]; compare: string | null; preview: boolean }) {
+  return (
+    <div
+      aria-hidden="true"
+      className="pointer-events-none absolute bottom-2 left-2 flex flex-col gap-0.5 text-[10px]"
+      style={{ color: CHART_PALETTE.inkSoft }}
+    >
+      {kinds.map((k) => (
+        <span key={k.family} className="flex items-center gap-1.5">
+          <span className="inline-block h-[3px] w-4 rounded" style={{ background: k.colour }} />
+          {k.family}
+        </span>
+      ))}
+      <span className="flex items-center gap-1.5">
+        <span className="inline-block h-[4px] w-4 rounded" style={{ background: CHART_PALETTE.trace }} />
+        band trace
+      </span>
+      {compare ? (
+        <span className="flex items-center gap-1.5">
+          <span className="inline-block w-4 border-t-2 border-dashed" style={{ borderColor: CHART_PALETTE.compare }} />
+          {compare}
+        </span>
+      ) : null}
+      {preview ? (
+        <span className="flex items-center gap-1.5">
+          <span className="inline-block w-4 border-t-2 border-dashed" style={{ borderColor: CHART_PALETTE.preview }} />
+          candidate
+        </span>
+      ) : null}
+    </div>
+  );
+}
+
+function ZoomButtons({ onZoom, onReset, zoomed }: { onZoom: (factor: number) => void; onReset: () => void; zoomed: boolean }) {
+  const cls =
+    'flex h-6 w-6 items-center justify-center rounded border text-[13px] leading-none hover:bg-[#ece4d4] focus-visible:outline-2';
+  const style = { borderColor: '#d9cfbd', background: 'rgba(255, 253, 248, 0.9)', color: CHART_PALETTE.ink };
+  return (
+    <div className="absolute bottom-2 right-2 flex gap-1">
+      <button type="button" className={cls} style={style} aria-label="Zoom in on the chart" onClick={() => onZoom(ZOOM_STEP)}>
+        +
+      </button>
+      <button type="button" className={cls} style={style} aria-label="Zoom out of the chart" onClick={() => onZoom(1 / ZOOM_STEP)}>
+        −
+      </button>
+      {zoomed ? (
+        <button type="button" className={`${cls} w-auto px-1.5 text-[10px]`} style={style} aria-label="Reset the chart view" onClick={onReset}>
+          fit
+        </button>
+      ) : null}
     </div>
   );
 }
