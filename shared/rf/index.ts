@@ -17,3 +17,4 @@ export * from './analyze';
 export * from './result';
 export * from './touchstone';
 export * from './units';
+export * from './path';
