@@ -128,3 +128,6 @@ export function isPreferred(value: number, series: ESeries, relTol = 1e-6): bool
   const p = nearestPreferred(value, series);
   return Math.abs(p - value) <= relTol * p;
 }
+
+/** Alias of `ESeries` (the name some callers use). */
+export type ESeriesName = ESeries;
