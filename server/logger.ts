@@ -2,7 +2,7 @@
  * Structured logs (pino). Secrets never reach a log line: cookies, authorization headers, set-cookie
  * and any `password` or `token` field are redacted.
  */
-import { pino, type Logger as PinoLogger } from 'pino';
+import { pino, type DestinationStream, type Logger as PinoLogger } from 'pino';
 import type { Config } from './config';
 
 export type Logger = PinoLogger;
@@ -21,11 +21,13 @@ export const REDACT_PATHS = [
   '*.jwtSecret',
 ];
 
-export function createLogger(config: Pick<Config, 'logLevel' | 'nodeEnv'>): Logger {
-  return pino({
+/** A JSON logger to standard output (or `destination`, which tests use to read the lines). */
+export function createLogger(config: Pick<Config, 'logLevel' | 'nodeEnv'>, destination?: DestinationStream): Logger {
+  const options = {
     level: config.logLevel,
     base: { app: 'matchloom' },
     redact: { paths: REDACT_PATHS, censor: '[redacted]' },
     timestamp: pino.stdTimeFunctions.isoTime,
-  });
+  };
+  return destination ? pino(options, destination) : pino(options);
 }
