@@ -297,7 +297,7 @@ export function nearestTracePoint(model: TraceModel, px: number, py: number, max
     const dx = pixels[2 * i] - px;
     const dy = pixels[2 * i + 1] - py;
     const d = dx * dx + dy * dy;
-    if (d <= bestD) {
+    if (d < bestD || (best < 0 && d <= bestD)) {
       bestD = d;
       best = i;
     }
