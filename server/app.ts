@@ -37,6 +37,8 @@ export interface AppDeps {
   events: RoomEvents;
   /** true once migrated and listening, false again while shutting down. */
   isReady: () => boolean;
+  /** true when the demo accounts exist and this is not production (health then says `demo: true`). */
+  demoAccounts: () => boolean;
   /** the built client to serve, or null for the API only. */
   clientDir: string | null;
 }
@@ -80,7 +82,7 @@ export function createApp(deps: AppDeps): express.Express {
   );
 
   const api = express.Router();
-  api.use(healthRoutes(deps.isReady));
+  api.use(healthRoutes(deps.isReady, deps.demoAccounts));
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
   api.use(cookieParser());
   api.use(originCheck(deps.config.publicUrl));

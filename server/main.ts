@@ -14,6 +14,8 @@ import { createApp } from './app';
 import { DEFAULT_CLIENT_DIR } from './static';
 import { createCollabHub } from './collab/index';
 import { seedDemo } from '../db/seeds/demo';
+import { findUserByEmail } from './services/users';
+import { DEMO_USERS } from '../shared/demo/designs';
 
 export interface RunningServer {
   url: string;
@@ -36,6 +38,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
   const logger = options.logger ?? createLogger(config);
   const knex = createKnex(config.databaseFile);
   let ready = false;
+  let demoAccounts = false;
   try {
     const applied = await migrateLatest(knex);
     if (applied.length) logger.info({ applied }, 'database migrated');
@@ -43,6 +46,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
       const { created } = await seedDemo(knex, { bcryptCost: config.bcryptCost });
       if (created) logger.info('demo rooms and accounts created');
     }
+    demoAccounts = config.nodeEnv !== 'production' && (await findUserByEmail(knex, DEMO_USERS[0].email)) !== null;
   } catch (e) {
     await knex.destroy();
     throw e;
@@ -58,6 +62,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     passwords: createPasswordHasher(config.bcryptCost),
     events: hub,
     isReady: () => ready,
+    demoAccounts: () => demoAccounts,
     clientDir: options.clientDir === undefined ? DEFAULT_CLIENT_DIR : options.clientDir,
   });
   const httpServer = http.createServer(app);

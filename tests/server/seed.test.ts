@@ -13,6 +13,10 @@ afterAll(async () => {
 });
 
 describe('demo seed', () => {
+  it('GET /api/health says the demo accounts are there', async () => {
+    expect((await server.agent().get('/api/health').expect(200)).body).toEqual({ ok: true, demo: true });
+  });
+
   it('every demo account signs in with the demo password and sees the three rooms with its role', async () => {
     for (const u of DEMO_USERS) {
       const agent = await signIn(server, u.email, DEMO_PASSWORD);
