@@ -20,6 +20,8 @@ export class CollabConnection {
   closed = false;
   /** Set by the ping sweep; cleared when a pong arrives. */
   awaitingPong = false;
+  /** True once an update that would have changed the document was dropped (the client's copy has diverged). */
+  diverged = false;
   /** True once the hub has set the role (a role change), so a stale database read must not undo it. */
   roleSetByHub = false;
   private closedListeners: ((conn: CollabConnection) => void)[] = [];

@@ -193,11 +193,15 @@ export class Room {
           return;
         case 'sync-step-2':
         case 'update':
+          const decoded = decodeDocumentUpdate(msg.update);
           if (!conn.canWrite()) {
+            // An observer's client answers the server's sync step 1 with its (usually empty) step 2:
+            // only an update that would change something means its copy has diverged.
+            if (!updateIsRedundant(this.doc, decoded)) conn.diverged = true;
             logger.debug({ roomId: this.id, userId: conn.userId, role: conn.role, kind: msg.kind }, 'dropped a document update from a member who may not edit');
             return;
           }
-          this.pending.push({ conn, update: msg.update, decoded: decodeDocumentUpdate(msg.update) });
+          this.pending.push({ conn, update: msg.update, decoded });
           this.kick();
           return;
         case 'awareness':
@@ -282,7 +286,10 @@ export class Room {
       const accepted: PendingWrite[] = [];
       for (const w of this.pending.splice(0)) {
         if (!w.conn.canWrite()) {
-          if (!w.conn.closed) logger.debug({ roomId: this.id, userId: w.conn.userId }, 'dropped a queued update: the member may no longer edit');
+          if (!w.conn.closed) {
+            logger.debug({ roomId: this.id, userId: w.conn.userId }, 'dropped a queued update: the member may no longer edit');
+            if (!updateIsRedundant(this.doc, w.decoded)) w.conn.diverged = true;
+          }
           continue;
         }
         if (updateIsRedundant(this.doc, w.decoded)) continue;
@@ -355,13 +362,20 @@ export class Room {
     }
   }
 
-  /** A member's role changed (null: removed). */
+  /**
+   * A member's role changed (null: removed). A socket whose updates were dropped while it could not edit
+   * and that may edit now is asked to reconnect (4100), so that its copy and the room's agree again.
+   */
   setRole(userId: string, role: CollabConnection['role'] | null): void {
     for (const conn of [...this.conns]) {
       if (conn.userId !== userId) continue;
       conn.roleSetByHub = true;
-      if (role === null) conn.close(COLLAB_CLOSE.forbidden, 'you were removed from this room');
-      else conn.role = role;
+      if (role === null) {
+        conn.close(COLLAB_CLOSE.forbidden, 'you were removed from this room');
+        continue;
+      }
+      conn.role = role;
+      if (conn.diverged && conn.canWrite()) conn.close(COLLAB_CLOSE.resync, 'you may edit again; reconnecting to resynchronise');
     }
   }
 }

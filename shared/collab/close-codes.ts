@@ -18,6 +18,11 @@ export const COLLAB_CLOSE = {
   serverError: 1011,
   /** The server is shutting down. Transient. */
   goingAway: 1001,
+  /**
+   * You may edit again, but edits you made while you could not were dropped: reconnect so the server
+   * takes them now and your document matches everyone's. Transient.
+   */
+  resync: 4100,
   /** The client fell too far behind in reading; it reconnects and resynchronises. Transient. */
   tooSlow: 4503,
 } as const;
