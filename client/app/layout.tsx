@@ -1,27 +1,23 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { Suspense } from 'react';
-import { Link, Navigate, Outlet, redirect, useLocation, useNavigate, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, Navigate, Outlet, useLocation, useMatches, type LoaderFunctionArgs } from 'react-router-dom';
 import { Button } from '../components/button';
 import { Loading } from '../components/page-status';
 import { Wordmark } from '../components/wordmark';
 import { paths } from '../config/paths';
-import { meQueryOptions, useMe } from '../features/auth/api/get-me';
+import { useMe } from '../features/auth/api/get-me';
 import { useSignOut } from '../features/auth/api/sign-out';
+import { cx } from '../lib/cx';
+import { requireSignedIn } from './auth-loader';
+import type { RouteHandle } from './router';
 
-const hereOf = (url: URL) => `${url.pathname}${url.search}`;
-
-/** Signed-out visitors go to sign in, and come back here afterwards. */
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async ({ request }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData(meQueryOptions());
-    if (!me) throw redirect(paths.auth.signIn.getHref(hereOf(new URL(request.url))));
-    return null;
-  };
+export const clientLoader = (queryClient: QueryClient) => async (args: LoaderFunctionArgs) => {
+  await requireSignedIn(queryClient, args);
+  return null;
+};
 
 function AppBar({ displayName }: { displayName: string }) {
-  const navigate = useNavigate();
-  const signOut = useSignOut({ onSuccess: () => navigate(paths.auth.signIn.getHref(), { replace: true }) });
+  const signOut = useSignOut({ onSuccess: () => window.location.assign(paths.auth.signIn.getHref()) });
   return (
     <header className="border-b border-rule bg-card/80 backdrop-blur">
       <div className="mx-auto flex max-w-6xl items-center justify-between gap-4 px-4 py-2.5">
@@ -45,6 +41,7 @@ function AppBar({ displayName }: { displayName: string }) {
 export default function AppLayout() {
   const { data: me } = useMe();
   const location = useLocation();
+  const wide = useMatches().some((match) => (match.handle as RouteHandle | undefined)?.wide);
   // The session can end while the app is open (signed out elsewhere, expired): ask to sign in again.
   if (me === null) return <Navigate to={paths.auth.signIn.getHref(`${location.pathname}${location.search}`)} replace />;
   return (
@@ -53,7 +50,7 @@ export default function AppLayout() {
         Skip to content
       </a>
       <AppBar displayName={me?.displayName ?? ''} />
-      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">
+      <main id="main" className={cx('mx-auto w-full flex-1 px-4', wide ? 'max-w-none py-4' : 'max-w-6xl py-6')}>
         <Suspense fallback={<Loading />}>
           <Outlet />
         </Suspense>

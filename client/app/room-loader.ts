@@ -1,13 +1,23 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { ApiError } from '../lib/api-client';
-import { roomFrom } from '../features/rooms/api/get-room';
-import { roomsQueryOptions } from '../features/rooms/api/get-rooms';
+import { ApiError, isApiError } from '../lib/api-client';
+import { roomQueryOptions } from '../features/rooms/api/get-room';
+import { isSignedIn } from './auth-loader';
 
-/** A room the user is not a member of is a 404, as the server answers for it. */
-export const roomLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
-  const rooms = await queryClient.ensureQueryData(roomsQueryOptions());
-  if (!roomFrom(rooms, params.roomId ?? ''))
-    throw new ApiError(404, 'room-not-found', 'There is no such room, or you are not one of its members.');
-  return null;
-};
+/**
+ * The room pages need the room (and the user's role in it) first. The server answers 404 alike for
+ * a room that does not exist and one the user is not in; the route's error boundary says both.
+ */
+export const roomLoader =
+  (queryClient: QueryClient) =>
+  async ({ params }: LoaderFunctionArgs) => {
+    if (!(await isSignedIn(queryClient))) return null;
+    try {
+      await queryClient.ensureQueryData(roomQueryOptions(params.roomId ?? ''));
+    } catch (error) {
+      if (isApiError(error) && error.status === 404)
+        throw new ApiError(404, error.code, 'There is no such room, or you are not one of its members. Ask its owner to add you.');
+      throw error;
+    }
+    return null;
+  };

@@ -9,16 +9,23 @@ import { createBrowserRouter, redirect, type LoaderFunction, type RouteObject } 
 import { RouteError } from '../components/route-error';
 import { paths } from '../config/paths';
 
+/** What a route may tell the layout: `wide` pages (the room workspace) use the whole window width. */
+export interface RouteHandle {
+  wide?: boolean;
+}
+
 interface RouteModule {
   default: ComponentType;
   clientLoader?: (queryClient: QueryClient) => LoaderFunction;
   ErrorBoundary?: ComponentType;
+  handle?: RouteHandle;
 }
 
 const convert = (queryClient: QueryClient) => (module: RouteModule) => ({
   Component: module.default,
   loader: module.clientLoader?.(queryClient),
   ErrorBoundary: module.ErrorBoundary ?? RouteError,
+  handle: module.handle,
 });
 
 export function createRoutes(queryClient: QueryClient): RouteObject[] {

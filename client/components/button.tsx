@@ -14,7 +14,8 @@ export const buttonClass = (variant: ButtonVariant = 'primary', size: 'md' | 'sm
   cx(
     'inline-flex items-center justify-center gap-2 rounded-lg font-semibold transition-colors',
     'disabled:cursor-not-allowed disabled:opacity-70',
-    size === 'md' ? 'px-4 py-2 text-sm' : 'px-2.5 py-1 text-sm',
+    // A medium button is as tall as a text field, so they line up in a row.
+    size === 'md' ? 'min-h-10.5 px-4 py-2 text-sm' : 'px-2.5 py-1 text-sm',
     variants[variant],
   );
 

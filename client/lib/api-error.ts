@@ -21,12 +21,18 @@ const isRecord = (value: unknown): value is Record<string, unknown> =>
   typeof value === 'object' && value !== null && !Array.isArray(value);
 
 /**
- * Field messages from an error body, accepting either a map (`{ email: "..." }`, or a list of
- * messages per field) or a list of issues (`[{ path: "email", message: "..." }]`).
+ * Field messages from an error body. The server names the one field at fault
+ * (`{ field: "email", message: "email: must be a valid e-mail address" }`); the message shown beside
+ * the field drops the repeated name. A map (`fields: { email: "..." }`) or a list of issues
+ * (`issues: [{ path: "email", message: "..." }]`) is read too.
  */
-function fieldsFrom(raw: unknown): Record<string, string> | undefined {
+function fieldsFrom(error: Record<string, unknown>): Record<string, string> | undefined {
   const fields: Record<string, string> = {};
-  if (Array.isArray(raw)) {
+  const raw = error.fields ?? error.issues;
+  if (typeof error.field === 'string' && error.field && typeof error.message === 'string') {
+    const prefix = `${error.field}: `;
+    fields[error.field] = error.message.startsWith(prefix) ? error.message.slice(prefix.length) : error.message;
+  } else if (Array.isArray(raw)) {
     for (const issue of raw) {
       if (!isRecord(issue) || typeof issue.message !== 'string') continue;
       const path = Array.isArray(issue.path) ? issue.path.join('.') : issue.path ?? issue.field;
@@ -49,5 +55,5 @@ export function apiErrorFrom(status: number, body: unknown, statusText = ''): Ap
     typeof error?.message === 'string' && error.message
       ? error.message
       : `The server answered ${status}${statusText ? ` ${statusText}` : ''}.`;
-  return new ApiError(status, code, message, fieldsFrom(error?.fields ?? error?.issues));
+  return new ApiError(status, code, message, error ? fieldsFrom(error) : undefined);
 }

@@ -10,5 +10,6 @@ export const queryKeys = {
     list: () => ['rooms', 'list'] as const,
     detail: (roomId: string) => ['rooms', 'detail', roomId] as const,
     members: (roomId: string) => ['rooms', 'detail', roomId, 'members'] as const,
+    invitations: (roomId: string) => ['rooms', 'detail', roomId, 'invitations'] as const,
   },
 };

@@ -4,14 +4,17 @@ import { buttonClass } from '../../components/button';
 import { Loading } from '../../components/page-status';
 import { paths } from '../../config/paths';
 import { useMe } from '../../features/auth/api/get-me';
+import { useInvitations } from '../../features/members/api/get-invitations';
 import { membersQueryOptions, useMembers } from '../../features/members/api/get-members';
 import { AddMemberForm } from '../../features/members/components/add-member-form';
 import { MemberList } from '../../features/members/components/member-list';
 import { useRoom } from '../../features/rooms/api/get-room';
 import { RoomHeader } from '../../features/rooms/components/room-header';
+import { isSignedIn } from '../auth-loader';
 import { roomLoader } from '../room-loader';
 
 export const clientLoader = (queryClient: QueryClient) => async (args: LoaderFunctionArgs) => {
+  if (!(await isSignedIn(queryClient))) return null;
   await Promise.all([roomLoader(queryClient)(args), queryClient.prefetchQuery(membersQueryOptions(args.params.roomId ?? ''))]);
   return null;
 };
@@ -21,8 +24,9 @@ export default function MembersRoute() {
   const { data: room } = useRoom(roomId);
   const { data: me } = useMe();
   const members = useMembers(roomId);
+  const isOwner = room?.role === 'owner';
+  const invitations = useInvitations(roomId, { enabled: isOwner });
   if (!room || !me) return <Loading />;
-  const isOwner = room.role === 'owner';
   return (
     <div className="flex max-w-3xl flex-col gap-6">
       <RoomHeader
@@ -55,7 +59,13 @@ export default function MembersRoute() {
           Who is in this room
         </h2>
         {members.data ? (
-          <MemberList roomId={room.id} members={members.data.members} invitations={members.data.invitations} currentUserId={me.id} canManage={isOwner} />
+          <MemberList
+            roomId={room.id}
+            members={members.data}
+            invitations={isOwner ? invitations.data : undefined}
+            currentUserId={me.id}
+            canManage={isOwner}
+          />
         ) : members.isError ? (
           <p role="alert" className="text-coral-deep">
             {members.error.message}

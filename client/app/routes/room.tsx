@@ -6,10 +6,14 @@ import { paths } from '../../config/paths';
 import { useRoom } from '../../features/rooms/api/get-room';
 import { RoomHeader } from '../../features/rooms/components/room-header';
 import { roomLoader } from '../room-loader';
+import type { RouteHandle } from '../router';
 
 const Workspace = lazy(() => import('../../features/workspace/workspace'));
 
 export const clientLoader = roomLoader;
+
+/** The workspace wants the whole window. */
+export const handle: RouteHandle = { wide: true };
 
 export default function RoomRoute() {
   const roomId = useParams().roomId ?? '';

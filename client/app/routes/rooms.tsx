@@ -5,9 +5,10 @@ import { roomsQueryOptions, useRooms } from '../../features/rooms/api/get-rooms'
 import { CreateRoomForm } from '../../features/rooms/components/create-room-form';
 import { RoomList } from '../../features/rooms/components/room-list';
 import { Loading } from '../../components/page-status';
+import { isSignedIn } from '../auth-loader';
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
-  await queryClient.ensureQueryData(roomsQueryOptions());
+  if (await isSignedIn(queryClient)) await queryClient.ensureQueryData(roomsQueryOptions());
   return null;
 };
 
@@ -15,18 +16,19 @@ export default function RoomsRoute() {
   const navigate = useNavigate();
   const rooms = useRooms();
   return (
-    <div className="flex flex-col gap-8">
+    <div className="flex flex-col gap-6">
+      <header>
+        <h1 className="text-2xl font-extrabold tracking-tight sm:text-3xl">Your rooms</h1>
+        <p className="mt-1 text-ink-soft">Every room you belong to, the one changed most recently first.</p>
+      </header>
       <section aria-labelledby="new-room-title" className="rounded-2xl border border-rule bg-card p-5 shadow-xs">
-        <h1 id="new-room-title" className="mb-1 text-xl font-extrabold">
+        <h2 id="new-room-title" className="mb-1 text-lg font-extrabold">
           Start a room
-        </h1>
+        </h2>
         <p className="mb-4 text-sm text-ink-soft">A room holds one matching design: a load, a chain of elements and a port. You will be its owner.</p>
         <CreateRoomForm onCreated={(roomId) => navigate(paths.room.getHref(roomId))} />
       </section>
-      <section aria-labelledby="rooms-title">
-        <h2 id="rooms-title" className="mb-3 text-xl font-extrabold">
-          Your rooms
-        </h2>
+      <section aria-label="Room list">
         {rooms.data ? <RoomList rooms={rooms.data} /> : <Loading label="Loading your rooms…" />}
       </section>
     </div>

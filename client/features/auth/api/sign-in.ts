@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { api } from '../../../lib/api-client';
+import { api, parseResponse } from '../../../lib/api-client';
 import type { MutationConfig } from '../../../lib/react-query';
-import { meQueryOptions } from './get-me';
+import { queryKeys } from '../../../lib/query-keys';
+import { userSchema, type User } from './user';
 
 export const signInInputSchema = z.object({
   email: z.string().trim().min(1, 'Enter your e-mail address').pipe(z.email('Enter a valid e-mail address')),
@@ -11,10 +12,11 @@ export const signInInputSchema = z.object({
 
 export type SignInInput = z.infer<typeof signInInputSchema>;
 
-/** `POST /api/auth/signin`: sets the session cookie, or fails with 401. */
-export const signIn = (input: SignInInput): Promise<unknown> => api.post('/api/auth/signin', input);
+/** `POST /api/auth/signin`: the user, with the session cookie set; or a 401. */
+export const signIn = async (input: SignInInput): Promise<User> =>
+  parseResponse(userSchema)(await api.post('/api/auth/signin', input));
 
-/** Signing in switches users: everything cached for the previous one goes, and `me` is fetched afresh. */
+/** Signing in switches users: everything cached for the previous one goes; `me` is the answer. */
 export function useSignIn(config: MutationConfig<typeof signIn> = {}) {
   const queryClient = useQueryClient();
   const { onSuccess, ...rest } = config;
@@ -24,7 +26,7 @@ export function useSignIn(config: MutationConfig<typeof signIn> = {}) {
     mutationFn: signIn,
     onSuccess: async (...args) => {
       queryClient.removeQueries();
-      await queryClient.prefetchQuery(meQueryOptions());
+      queryClient.setQueryData(queryKeys.me, args[0]);
       await onSuccess?.(...args);
     },
   });

@@ -1,22 +1,15 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { MutationConfig } from '../../../lib/react-query';
-import { queryKeys } from '../../../lib/query-keys';
 
 /** `POST /api/auth/signout`: clears the session cookie. */
 export const signOut = (): Promise<unknown> => api.post('/api/auth/signout');
 
-/** After signing out nothing of the previous user stays cached; `me` becomes `null`. */
+/**
+ * Signing out. The caller then loads the sign-in page afresh (`window.location.assign`), which drops
+ * every cached answer and every open room connection of the previous user at once; clearing the
+ * cache here first would only make the signed-in pages flash a redirect of their own.
+ */
 export function useSignOut(config: MutationConfig<typeof signOut> = {}) {
-  const queryClient = useQueryClient();
-  const { onSuccess, ...rest } = config;
-  return useMutation({
-    ...rest,
-    mutationFn: signOut,
-    onSuccess: async (...args) => {
-      queryClient.removeQueries();
-      queryClient.setQueryData(queryKeys.me, null);
-      await onSuccess?.(...args);
-    },
-  });
+  return useMutation({ ...config, mutationFn: signOut });
 }

@@ -7,7 +7,7 @@ export function AuthLayout({ title, children, footer }: { title: string; childre
     <div className="flex min-h-screen flex-col items-center justify-center px-4 py-10">
       <main className="w-full max-w-md">
         <div className="mb-6 flex flex-col items-center gap-2 text-center">
-          <Wordmark />
+          <Wordmark size={36} />
           <p className="text-sm text-ink-soft">Shared, live rooms for designing impedance-matching networks.</p>
         </div>
         <div className="rounded-2xl border border-rule bg-card p-6 shadow-sm sm:p-8">

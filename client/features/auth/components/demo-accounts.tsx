@@ -1,13 +1,6 @@
-/** The demo accounts the server seeds (PRODUCT.md "The demo scenario"), all with one password. */
-export const DEMO_PASSWORD = 'matchloom-demo';
+import { DEMO_PASSWORD, DEMO_USERS } from '../../../../shared/demo/designs';
 
-export const demoAccounts = [
-  { email: 'owner@demo.test', role: 'owner' },
-  { email: 'tuner@demo.test', role: 'tuner' },
-  { email: 'observer@demo.test', role: 'observer' },
-] as const;
-
-/** A list of the demo accounts; choosing one fills the sign-in form. */
+/** The demo accounts the server seeds (PRODUCT.md "The demo scenario"); choosing one fills the sign-in form. */
 export function DemoAccounts({ onPick }: { onPick: (account: { email: string; password: string }) => void }) {
   return (
     <section aria-labelledby="demo-accounts-title" className="rounded-xl border border-dashed border-amber bg-amber-soft/60 p-4">
@@ -15,11 +8,11 @@ export function DemoAccounts({ onPick }: { onPick: (account: { email: string; pa
         Demo accounts
       </h2>
       <p className="mt-1 text-sm text-ink-soft">
-        This server holds the demo rooms. Pick an account to fill the form; the password is{' '}
+        Each opens the demo rooms in a different role. Pick one to fill the form; the password is{' '}
         <code className="numeric rounded bg-card px-1 text-ink">{DEMO_PASSWORD}</code>.
       </p>
       <ul className="mt-3 flex flex-col gap-1.5">
-        {demoAccounts.map((account) => (
+        {DEMO_USERS.map((account) => (
           <li key={account.email}>
             <button
               type="button"

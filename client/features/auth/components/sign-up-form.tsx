@@ -14,7 +14,7 @@ export function SignUpForm({ onSuccess }: { onSuccess: () => void }) {
   });
   const signUp = useSignUp({
     onSuccess: () => onSuccess(),
-    onError: (error) => setFormError(showServerErrors(error, ['displayName', 'email', 'password'], setError)),
+    onError: (error) => setFormError(showServerErrors(error, ['displayName', 'email', 'password'], setError, { 'email-taken': 'email' })),
   });
 
   const submit = handleSubmit((input) => {

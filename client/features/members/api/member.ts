@@ -1,23 +1,24 @@
 import { z } from 'zod';
 import { roomRoleSchema } from '../../../lib/room-role';
 
+const timeSchema = z.union([z.number(), z.string()]);
+
 /** A member of a room: who they are and their role there. */
-export const memberSchema = z
-  .looseObject({
-    userId: z.string().optional(),
-    id: z.string().optional(),
-    email: z.string(),
-    displayName: z.string().optional(),
-    role: roomRoleSchema,
-  })
-  .transform(({ userId, id, ...rest }) => ({ ...rest, userId: userId ?? id ?? '' }))
-  .refine((m) => m.userId !== '', 'a member needs an id');
+export const memberSchema = z.looseObject({
+  userId: z.string(),
+  email: z.string(),
+  displayName: z.string(),
+  role: roomRoleSchema,
+  joinedAt: timeSchema.optional(),
+});
 
 /** An address invited by e-mail that has no account yet. */
 export const invitationSchema = z.looseObject({
+  id: z.string(),
   email: z.string(),
   role: roomRoleSchema,
-  expiresAt: z.union([z.number(), z.string()]).optional(),
+  expiresAt: timeSchema.optional(),
+  createdAt: timeSchema.optional(),
 });
 
 export type Member = z.infer<typeof memberSchema>;

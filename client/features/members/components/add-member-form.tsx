@@ -5,10 +5,10 @@ import { Button } from '../../../components/button';
 import { FormError, SelectField, TextField } from '../../../components/form-field';
 import { showServerErrors } from '../../../lib/form-errors';
 import { notices } from '../../../lib/notices';
-import { roomRoles } from '../../../lib/room-role';
+import { roleLabel, roleWithArticle, roomRoles } from '../../../lib/room-role';
 import { addMemberInputSchema, useAddMember, type AddMemberInput } from '../api/add-member';
 
-const roleOptions = roomRoles.map((role) => ({ value: role, label: role[0].toUpperCase() + role.slice(1) }));
+const roleOptions = roomRoles.map((role) => ({ value: role, label: roleLabel(role) }));
 
 /** The owner's form: add someone by e-mail with a role (an address without an account is invited). */
 export function AddMemberForm({ roomId }: { roomId: string }) {
@@ -18,11 +18,18 @@ export function AddMemberForm({ roomId }: { roomId: string }) {
     defaultValues: { email: '', role: 'tuner' },
   });
   const addMember = useAddMember(roomId, {
-    onSuccess: (_data, input) => {
+    onSuccess: (result, input) => {
       reset({ email: '', role: input.role });
-      notices.post({ tone: 'success', title: 'Member added', message: `${input.email} is now a ${input.role} of this room.` });
+      if (result.kind === 'added')
+        notices.post({ tone: 'success', title: 'Member added', message: `${result.member.displayName} is now ${roleWithArticle(result.member.role)} of this room.` });
+      else
+        notices.post({
+          tone: 'info',
+          title: 'Invitation recorded',
+          message: `No account uses ${result.invitation.email} yet; they join as ${roleWithArticle(result.invitation.role)} when they sign up with it.`,
+        });
     },
-    onError: (error) => setFormError(showServerErrors(error, ['email', 'role'], setError)),
+    onError: (error) => setFormError(showServerErrors(error, ['email', 'role'], setError, { 'already-member': 'email' })),
   });
 
   return (

@@ -1,9 +1,7 @@
 import { useState } from 'react';
 import { Button } from '../../../components/button';
-import { controlClass } from '../../../components/form-field';
 import { RoleBadge } from '../../../components/role-badge';
-import { cx } from '../../../lib/cx';
-import { roomRoleSchema, roomRoles, type RoomRole } from '../../../lib/room-role';
+import { roleLabel, roomRoleSchema, roomRoles } from '../../../lib/room-role';
 import { useRemoveMember } from '../api/remove-member';
 import { useUpdateMemberRole } from '../api/update-member-role';
 import type { Invitation, Member } from '../api/member';
@@ -25,7 +23,7 @@ function MemberControls({ roomId, member }: { roomId: string; member: Member }) 
   const who = member.displayName || member.email;
 
   return (
-    <div className="flex flex-wrap items-center gap-2">
+    <div className="flex shrink-0 items-center gap-2">
       <label className="sr-only" htmlFor={`role-${member.userId}`}>
         Role of {who}
       </label>
@@ -37,11 +35,11 @@ function MemberControls({ roomId, member }: { roomId: string; member: Member }) 
           const role = roomRoleSchema.parse(event.target.value);
           if (role !== member.role) updateRole.mutate({ roomId, userId: member.userId, role });
         }}
-        className={cx(controlClass(false), 'w-auto py-1 text-sm')}
+        className="rounded-lg border border-rule bg-card px-2.5 py-1.5 text-sm font-semibold text-ink hover:border-ink-faint"
       >
-        {roomRoles.map((role: RoomRole) => (
+        {roomRoles.map((role) => (
           <option key={role} value={role}>
-            {role}
+            {roleLabel(role)}
           </option>
         ))}
       </select>
@@ -97,7 +95,7 @@ export function MemberList({ roomId, members, invitations = [], currentUserId, c
           </h3>
           <ul aria-label="Invitations" className="divide-y divide-rule rounded-xl border border-dashed border-rule bg-card/60">
             {invitations.map((invitation) => (
-              <li key={invitation.email} className="flex items-center justify-between gap-3 px-4 py-2">
+              <li key={invitation.id} className="flex items-center justify-between gap-3 px-4 py-2">
                 <span className="numeric text-sm">{invitation.email}</span>
                 <RoleBadge role={invitation.role} />
               </li>

@@ -1,15 +1,21 @@
-import { useQuery } from '@tanstack/react-query';
-import { roomsQueryOptions } from './get-rooms';
-import type { RoomSummary } from './room';
-
-/** Picks one room out of the user's room list; `null` when the user is not one of its members. */
-export const roomFrom = (rooms: readonly RoomSummary[], roomId: string): RoomSummary | null =>
-  rooms.find((room) => room.id === roomId) ?? null;
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api, parseResponse } from '../../../lib/api-client';
+import { queryKeys } from '../../../lib/query-keys';
+import { roomSummarySchema, type RoomSummary } from './room';
 
 /**
- * One room and the signed-in user's role in it, read from the contract's `GET /api/rooms` (the
- * same cached query as the room list), so a room the user does not belong to is absent here
- * exactly as on the server.
+ * `GET /api/rooms/:id`: one room and the signed-in user's role in it. A room the user is not a
+ * member of (or that does not exist) is a 404.
  */
-export const useRoom = (roomId: string) =>
-  useQuery({ ...roomsQueryOptions(), select: (rooms) => roomFrom(rooms, roomId) });
+export const getRoom = async (roomId: string, { signal }: { signal?: AbortSignal } = {}): Promise<RoomSummary> =>
+  parseResponse(roomSummarySchema)(await api.get(`/api/rooms/${encodeURIComponent(roomId)}`, { signal }));
+
+export const roomQueryOptions = (roomId: string) =>
+  queryOptions({
+    queryKey: queryKeys.rooms.detail(roomId),
+    queryFn: ({ signal }) => getRoom(roomId, { signal }),
+    // The route's error boundary explains a 404 or 403; no notice on top of it.
+    meta: { notice: false },
+  });
+
+export const useRoom = (roomId: string) => useQuery(roomQueryOptions(roomId));

@@ -4,11 +4,22 @@ import { paths } from '../../../config/paths';
 import { dateFrom, dateTimeLabel, timeAgo } from '../../../lib/format-time';
 import type { RoomParent, RoomSummary } from '../api/room';
 
+/** A stem forking in two: our mark for "started from a snapshot of another room". */
+function BranchIcon() {
+  return (
+    <svg viewBox="0 0 16 16" width="14" height="14" aria-hidden="true" focusable="false" className="mr-1.5 inline-block align-[-2px] text-violet">
+      <path d="M4 2v12M4 9c0-3 8-2 8-6" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
+      <circle cx="12" cy="3" r="1.6" fill="currentColor" />
+      <circle cx="4" cy="14" r="1.6" fill="currentColor" />
+    </svg>
+  );
+}
+
 function BranchInfo({ parent }: { parent: RoomParent }) {
   const from = parent.snapshotLabel ? `snapshot “${parent.snapshotLabel}”` : 'a snapshot';
   return (
     <p className="text-sm text-ink-soft">
-      <span aria-hidden="true" className="mr-1 text-violet">⑂</span>
+      <BranchIcon />
       Branch of {from}
       {parent.roomName && (
         <>
@@ -44,7 +55,7 @@ export function RoomList({ rooms }: { rooms: readonly RoomSummary[] }) {
   if (!rooms.length)
     return (
       <p className="rounded-xl border border-dashed border-rule bg-card px-4 py-6 text-ink-soft">
-        You are not in any room yet. Create one above, or ask a room’s owner to add you.
+        You are not in any room yet. Start one above, or ask a room’s owner to add you.
       </p>
     );
   return (
