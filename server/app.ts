@@ -85,7 +85,7 @@ export function createApp(deps: AppDeps): express.Express {
   api.use(healthRoutes(deps.isReady, deps.demoAccounts));
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
   api.use(cookieParser());
-  api.use(originCheck(deps.config.publicUrl));
+  api.use(originCheck({ publicUrl: deps.config.publicUrl, allowLoopbackOrigins: deps.config.nodeEnv === 'development' }));
   api.use(sessionMiddleware(deps));
   api.use(authRoutes(deps));
   api.use(roomRoutes(deps));

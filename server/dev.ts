@@ -13,7 +13,7 @@ const api = spawn(resolve('node_modules/.bin/tsx'), ['watch', '--clear-screen=fa
   env: { ...process.env, PORT: apiPort, API_PORT: apiPort, NODE_ENV: process.env.NODE_ENV || 'development' },
 });
 
-const vite = await createServer({ configFile: resolve('vite.config.ts'), server: { port: Number(process.env.VITE_PORT || 5173) } });
+const vite = await createServer({ configFile: resolve('vite.config.ts'), server: { port: Number(process.env.VITE_PORT || process.env.PORT || 5173) } });
 await vite.listen();
 vite.printUrls();
 process.stdout.write(`  API: http://localhost:${apiPort}/api (proxied by Vite)\n`);

@@ -156,6 +156,23 @@ describe('cross-site writes', () => {
     await agent.post('/api/rooms').send({ name: 'no origin' }).expect(201);
     // Reads are not affected.
     await agent.get('/api/rooms').set('Origin', 'https://evil.example').expect(200);
+    // Another port of this machine is another site outside development.
+    await agent.post('/api/rooms').set('Origin', 'http://localhost:5173').send({ name: 'x' }).expect(403);
+    // A proxy on this machine may say which host the browser used.
+    await agent.post('/api/rooms').set('Origin', 'https://front.example.test').set('X-Forwarded-Host', 'front.example.test').send({ name: 'proxied' }).expect(201);
+  });
+
+  it('accepts PUBLIC_URL, and in development any loopback origin (the Vite dev server)', async () => {
+    const dev = await startTestServer({ nodeEnv: 'development', publicUrl: 'https://matchloom.example.test' });
+    try {
+      const body = { email: uniqueEmail(), password: TEST_PASSWORD, displayName: 'D' };
+      await dev.agent().post('/api/auth/signup').set('Origin', 'https://matchloom.example.test').send(body).expect(201);
+      await dev.agent().post('/api/auth/signin').set('Origin', 'http://localhost:5173').send(body).expect(200);
+      await dev.agent().post('/api/auth/signin').set('Origin', 'http://127.0.0.1:5173').send(body).expect(200);
+      await dev.agent().post('/api/auth/signin').set('Origin', 'https://evil.example').send(body).expect(403);
+    } finally {
+      await dev.close();
+    }
   });
 });
 
