@@ -52,16 +52,20 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     } else if (err instanceof DesignError) {
       status = 400;
       body = { code: 'invalid-design', message: err.message, path: err.path };
-    } else if (err && typeof err === 'object' && typeof (err as BodyParserError).type === 'string') {
+    } else if (err && typeof err === 'object') {
       const e = err as BodyParserError;
-      const s = e.status ?? e.statusCode ?? 400;
+      const s = e.status ?? e.statusCode;
       if (e.type === 'entity.parse.failed') {
         status = 400;
         body = { code: 'bad-json', message: 'The request body is not valid JSON.' };
       } else if (e.type === 'entity.too.large') {
         status = 413;
         body = { code: 'too-large', message: `The request body is larger than the limit${e.limit ? ` of ${e.limit} bytes` : ''}.` };
-      } else if (s >= 400 && s < 500) {
+      } else if (err instanceof URIError) {
+        status = 400;
+        body = { code: 'bad-request', message: 'The address is not validly encoded.' };
+      } else if (typeof s === 'number' && s >= 400 && s < 500) {
+        // body-parser and the router's own refusals (bad charset or encoding, a malformed path, ...)
         status = s;
         body = { code: 'bad-request', message: e.expose && e.message ? e.message : 'The request could not be read.' };
       }

@@ -140,6 +140,16 @@ describe('request bodies', () => {
     expect(res.body.error.code).toBe('too-large');
   });
 
+  it('an unreadable body or address is a 4xx with the error shape, never a 500', async () => {
+    const { agent } = await signUp(server);
+    const gz = await agent.post('/api/rooms').set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('not gzip').expect(400);
+    expect(gz.body.error.code).toBe('bad-request');
+    const charset = await agent.post('/api/rooms').set('Content-Type', 'application/json; charset=latin-9').send('{"name":"x"}').expect(415);
+    expect(charset.body.error.code).toBe('bad-request');
+    expect((await agent.get('/api/rooms/%E0%A4%A').expect(400)).body.error.code).toBe('bad-request');
+    expect((await agent.post('/api/rooms').set('Content-Type', 'application/json').send('null').expect(400)).body.error.code).toBe('bad-json');
+  });
+
   it('an unknown API route is a JSON 404', async () => {
     const res = await server.agent().get('/api/nothing-here').expect(404);
     expect(res.body.error.code).toBe('not-found');
