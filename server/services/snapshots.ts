@@ -73,6 +73,7 @@ export interface NewSnapshot {
 /** Store a snapshot row (the route and the demo seed both use this). */
 export async function insertSnapshot(knex: Knex | Knex.Transaction, s: NewSnapshot): Promise<string> {
   const design = parseDesign(s.design);
+  const figures = designFigures(design);
   const id = newId();
   await knex('snapshots').insert({
     id,
@@ -80,7 +81,7 @@ export async function insertSnapshot(knex: Knex | Knex.Transaction, s: NewSnapsh
     label: s.label,
     design_json: JSON.stringify(design),
     state: Buffer.from(s.state),
-    figures_json: JSON.stringify(designFigures(design)),
+    figures_json: JSON.stringify(figures),
     for_review: s.forReview ?? false,
     created_by: s.createdBy,
     created_at: s.now ?? Date.now(),
@@ -88,18 +89,19 @@ export async function insertSnapshot(knex: Knex | Knex.Transaction, s: NewSnapsh
   return id;
 }
 
-/** Snapshot the room's current document. A document that no longer holds a valid design is a 409. */
+/**
+ * Snapshot the room's current document. The document is read in one transaction (so a compaction
+ * cannot slip between its state and its log); the engine runs outside it. A document that no longer
+ * holds a valid design is a 409.
+ */
 export async function createSnapshot(
   knex: Knex,
   input: { roomId: string; label: string; userId: string; forReview?: boolean },
 ): Promise<SnapshotView> {
-  return knex.transaction(async (trx) => {
+  const { design, state } = await knex.transaction(async (trx) => {
     const { doc } = await loadRoomDocument(trx, input.roomId);
-    let design: Design;
-    let state: Uint8Array;
     try {
-      design = readDesign(doc);
-      state = Y.encodeStateAsUpdate(doc);
+      return { design: readDesign(doc), state: Y.encodeStateAsUpdate(doc) };
     } catch (e) {
       if (e instanceof DesignError)
         throw new HttpError(409, 'invalid-design', `The room document does not hold a valid design: ${e.message}`, { path: e.path });
@@ -107,9 +109,16 @@ export async function createSnapshot(
     } finally {
       doc.destroy();
     }
-    const id = await insertSnapshot(trx, { roomId: input.roomId, label: input.label, design, state, createdBy: input.userId, forReview: input.forReview });
-    return toView((await snapshotQuery(trx).where('s.id', id).first()) as SnapshotRow);
   });
+  let id: string;
+  try {
+    id = await insertSnapshot(knex, { roomId: input.roomId, label: input.label, design, state, createdBy: input.userId, forReview: input.forReview });
+  } catch (e) {
+    // The room was deleted while the engine ran.
+    if ((e as { code?: string }).code === 'SQLITE_CONSTRAINT_FOREIGNKEY') throw notFound('Room not found.');
+    throw e;
+  }
+  return toView((await snapshotQuery(knex).where('s.id', id).first()) as SnapshotRow);
 }
 
 /** A room's snapshots, newest first. */
