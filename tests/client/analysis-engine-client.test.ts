@@ -5,6 +5,8 @@ import { engineCore, type EngineCore } from '../../client/features/workspace/ana
 import { engineWorkerApi } from '../../client/features/workspace/analysis/engine-worker-api';
 import { createWorkerEngineClient } from '../../client/features/workspace/analysis/worker-engine-client';
 import * as Comlink from 'comlink';
+import { zToGamma } from '../../client/features/workspace/chart/geometry';
+import type { RefineResult } from '../../client/features/workspace/analysis/engine-types';
 import { chipAntennaDesign, outOfRangeDesign } from './analysis-fixtures';
 
 /**
@@ -40,14 +42,17 @@ describe('main-thread engine client', () => {
     const direct = analyze(design);
     expect(Array.from(result.gamma)).toEqual(Array.from(direct.gamma));
     expect(result.frequenciesHz).toHaveLength(101);
-    expect(path.segments.map((s) => s.elementId)).toEqual(['c1', 'l1']);
+    expect(path.segments.map((s) => s.id)).toEqual(['c1', 'l1']);
     expect(path.segments.map((s) => s.kind)).toEqual(['shunt-c', 'series-l']);
-    // the path starts at the load's impedance at the centre and ends at the input impedance there
-    expect(path.load).toEqual(result.stagesAtCenter[0].z);
-    const last = path.segments[1].z;
-    const zEnd = result.stagesAtCenter[2].z;
-    expect(last[last.length - 2]).toBeCloseTo(zEnd[0], 9);
-    expect(last[last.length - 1]).toBeCloseTo(zEnd[1], 9);
+    // the path starts at the load's Γ at the centre and ends at the input Γ there (Γ = (z − z0)/(z + z0))
+    const g = (z: [number, number]) => zToGamma(z, 50);
+    expect(path.load[0]).toBeCloseTo(g(result.stagesAtCenter[0].z)[0], 9);
+    expect(path.load[1]).toBeCloseTo(g(result.stagesAtCenter[0].z)[1], 9);
+    const last = path.segments[1].gamma;
+    const gEnd = g(result.stagesAtCenter[2].z);
+    expect(last[last.length - 2]).toBeCloseTo(gEnd[0], 9);
+    expect(last[last.length - 1]).toBeCloseTo(gEnd[1], 9);
+    expect(path.hz).toBe(2.44e9);
   });
 
   it('rejects a design the engine refuses with the DesignError sentence, no stack', async () => {
@@ -163,9 +168,9 @@ describe('worker engine client (comlink over a MessageChannel)', () => {
     const workers: ReturnType<typeof channelWorker>[] = [];
     const fakeRefine: EngineCore = {
       ...engineCore,
-      refine(design, onProgress) {
-        for (let i = 1; i <= 3; i++) onProgress({ iteration: i, worst: 1 / i });
-        return { design, worstInBand: { vswr: 1.5, returnLossDb: 14 }, iterations: 3 };
+      async refine(design, onProgress) {
+        for (let i = 1; i <= 3; i++) onProgress({ phase: 'refine', iteration: i, evaluations: 10 * i, worstGamma: 1 / i, worst: 1 / i });
+        return { design, iterations: 3 } as unknown as RefineResult;
       },
     };
     const client = createWorkerEngineClient(() => {

@@ -2,7 +2,8 @@
  * FOR THE WORKSPACE ENGINEER: `getEngineClient()` is the one way the room screen talks to the engine.
  *   analyze(design)      -> { result, path }          (used by useAnalysis; prefer the hook)
  *   findMatches(design)  -> MatchResult               (shared/rf/match.ts's result)
- *   refine(design, onProgress, signal)  -> RefineResult   aborting the signal rejects with an AbortError
+ *   refine(design, onProgress, signal)  -> RefineResult   onProgress gets { iteration, worst (|Γ|), ... }
+ *                                          aborting the signal rejects with an AbortError (in both modes)
  *   yieldRun(design, { trials, seed }, onProgress, signal) -> YieldResult
  * Types live in ./engine-types. Errors a user caused (DesignError) reject with an Error whose
  * `name` is "DesignError" and whose message is the sentence to show (`engineErrorMessage(e)`).
@@ -13,7 +14,7 @@
  */
 import type { Design } from '../../../../shared/rf/design';
 import { engineCore as defaultCore, type EngineCore } from './engine-core';
-import type { AnalysisResult, ImpedancePath, MatchResult, RefineResult, YieldResult } from './engine-types';
+import type { AnalysisResult, ImpedancePath, MatchResult, RefineResult, RefineTick, YieldResult } from './engine-types';
 import { abortError } from './abort-error';
 import { createWorkerEngineClient } from './worker-engine-client';
 
@@ -22,7 +23,7 @@ export interface EngineClient {
   findMatches(design: Design, opts?: object): Promise<MatchResult>;
   refine(
     design: Design,
-    onProgress: (p: { iteration: number; worst: number }) => void,
+    onProgress: (p: RefineTick) => void,
     signal?: AbortSignal,
   ): Promise<RefineResult>;
   yieldRun(
@@ -52,7 +53,7 @@ export function createMainThreadEngineClient(core: EngineCore = defaultCore): En
     },
     async refine(design, onProgress, signal) {
       guard(signal);
-      const out = core.refine(design, onProgress, () => signal?.aborted === true);
+      const out = await core.refine(design, onProgress, signal);
       guard(signal);
       return out;
     },

@@ -1,37 +1,20 @@
 /**
- * The engine's result types as the room screen sees them.
+ * The engine's result types as the room screen sees them: re-exported from shared/rf under one
+ * import path (`../analysis/engine-types`), so that the chart, the plot and the panels agree.
  *
- * FOR THE WORKSPACE ENGINEER: import these names from here (not from shared/rf directly), so that
- * the chart, the plot and the panels agree on one spelling while the engine files land. Once
- * `shared/rf/index.ts`, `path.ts`, `match.ts`, `refine.ts` and `yield.ts` export their own types,
- * this file re-exports them under the same names.
- *
- * Shapes follow CONTRACT.md §3: numeric series are `Float64Array`s, complex series are interleaved
- * `[re0, im0, re1, im1, ...]` `Float64Array`s.
+ * FOR THE WORKSPACE ENGINEER:
+ *   AnalysisResult (shared/rf/analyze.ts): Float64Array series; complex series interleaved re, im.
+ *   ImpedancePath  (shared/rf/path.ts): { hz, referenceOhms, load: Γ, segments: { id, kind, gamma }[] },
+ *                  every point already Γ on referenceOhms.
+ *   MatchResult (shared/rf/match.ts), RefineResult / RefineProgress (refine.ts), YieldResult (yield.ts).
  */
-import type { Complex, Design } from '../../../../shared/rf/design';
+export type { Complex, Design } from '../../../../shared/rf/design';
 export type { AnalysisResult, Stage } from '../../../../shared/rf/analyze';
+export type { ImpedancePath, PathSegment } from '../../../../shared/rf/path';
 export type { MatchCandidate, MatchOptions, MatchResult } from '../../../../shared/rf/match';
+import type { RefineProgress } from '../../../../shared/rf/refine';
+export type { RefineOptions, RefineProgress, RefineResult } from '../../../../shared/rf/refine';
+export type { YieldOptions, YieldResult } from '../../../../shared/rf/yield';
 
-export type { Complex, Design };
-
-/** One element's stretch of the impedance path at the centre frequency: impedances from the stage before to the stage after. */
-export interface PathSegment {
-  elementId: string;
-  kind: string;
-  /** interleaved impedances [re, im, ...] along the element's travel */
-  z: Float64Array;
-}
-
-export interface ImpedancePath {
-  load: Complex;
-  segments: PathSegment[];
-}
-
-export type RefineResult = { design: Design; worstInBand: { vswr: number | null; returnLossDb: number }; iterations: number };
-export type YieldResult = {
-  trials: number;
-  passFraction: number;
-  worstVswr: { p50: number | null; p95: number | null; max: number | null };
-  envelope?: { minGamma: Float64Array; maxGamma: Float64Array };
-};
+/** What refine reports while it runs: the engine's progress plus `worst` (= worstGamma, best worst-in-band |Γ| so far). */
+export type RefineTick = RefineProgress & { worst: number };

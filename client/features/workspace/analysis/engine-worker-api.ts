@@ -6,6 +6,7 @@
 import * as Comlink from 'comlink';
 import type { Design } from '../../../../shared/rf/design';
 import { engineCore, type EngineCore } from './engine-core';
+import type { RefineTick } from './engine-types';
 import { transferablesOf } from './transferables';
 
 export function engineWorkerApi(core: EngineCore = engineCore) {
@@ -17,12 +18,20 @@ export function engineWorkerApi(core: EngineCore = engineCore) {
     findMatches(design: Design, opts?: object) {
       return core.findMatches(design, opts);
     },
-    refine(design: Design, onProgress: (p: { iteration: number; worst: number }) => void) {
-      const out = core.refine(design, (p) => void onProgress(p), () => false);
+    async refine(design: Design, onProgress: (p: RefineTick) => void) {
+      const out = await core.refine(design, (p) => void onProgress(p));
       return Comlink.transfer(out, transferablesOf(out));
     },
     yieldRun(design: Design, opts: { trials: number; seed: number }, onProgress: (done: number) => void) {
-      const out = core.yieldRun(design, opts, (d) => void onProgress(d), () => false);
+      // terminating the worker is the cancellation; progress is sent at most every 50 ms
+      let last = 0;
+      const tick = (d: number) => {
+        const now = Date.now();
+        if (now - last < 50 && d < opts.trials) return;
+        last = now;
+        void onProgress(d);
+      };
+      const out = core.yieldRun(design, opts, tick, () => false);
       return Comlink.transfer(out, transferablesOf(out));
     },
   };

@@ -6,9 +6,9 @@
  */
 import { bandCenterHz, goalMaxGamma, type Design } from '../../../../shared/rf/design';
 import type { AnalysisResult, ImpedancePath } from '../analysis/engine-types';
-import { pathSegmentsOf, pathStartOf } from '../analysis/path-adapter';
+import { pathRunsOf, pathStartOf } from '../analysis/path-adapter';
 import { CHART_PALETTE, elementKindColour } from './chart-palette';
-import { gammaToPixel, viewFrame, zToGamma, type ChartView, type Frame } from './geometry';
+import { gammaToPixel, viewFrame, type ChartView, type Frame } from './geometry';
 
 export interface PathStroke {
   elementId: string;
@@ -162,11 +162,12 @@ function traceLine(hzs: Float64Array, gammas: Float64Array, f: Frame, band: { st
   return { inBand, outside: [low, high].filter((p) => p.length >= 4) };
 }
 
-function pathStrokes(path: ImpedancePath, z0: number, f: Frame, selected: string | null | undefined): PathStroke[] {
-  return pathSegmentsOf(path).map((s) => {
+/** The path's Γ points are on the path's own reference; the chart's z0 is the same (referenceOhms). */
+function pathStrokes(path: ImpedancePath, f: Frame, selected: string | null | undefined): PathStroke[] {
+  return pathRunsOf(path).map((s) => {
     const pts: number[] = [];
-    for (let i = 0; i + 1 < s.z.length; i += 2) {
-      const [x, y] = gammaToPixel(zToGamma([s.z[i], s.z[i + 1]], z0), f);
+    for (let i = 0; i + 1 < s.gamma.length; i += 2) {
+      const [x, y] = gammaToPixel([s.gamma[i], s.gamma[i + 1]], f);
       pts.push(x, y);
     }
     return { elementId: s.elementId, kind: s.kind, colour: elementKindColour(s.kind), points: pts, selected: s.elementId === selected };
@@ -178,7 +179,7 @@ function overlay(result: AnalysisResult, path: ImpedancePath | null, label: stri
   return {
     label,
     trace: result.frequenciesHz.length ? traceLine(result.frequenciesHz, traceGammas(result, z0), f, design?.band ?? null) : null,
-    path: path ? pathStrokes(path, z0, f, null).map((s) => s.points) : [],
+    path: path ? pathStrokes(path, f, null).map((s) => s.points) : [],
   };
 }
 
@@ -218,12 +219,12 @@ export function buildTraceModel(input: TraceInput): TraceModel {
     goal = { x: f.cx, y: f.cy, r: g * f.radius, gamma: g };
   }
 
-  const strokes = path ? pathStrokes(path, z0, f, input.selectedElementId) : [];
+  const strokes = path ? pathStrokes(path, f, input.selectedElementId) : [];
   const stages: StageMarker[] = [];
   if (path) {
     const start = pathStartOf(path);
     if (start) {
-      const [x, y] = gammaToPixel(zToGamma(start, z0), f);
+      const [x, y] = gammaToPixel(start, f);
       stages.push({ after: 'load', x, y, colour: CHART_PALETTE.ink, role: 'load' });
     }
     strokes.forEach((s, i) => {
