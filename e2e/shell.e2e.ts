@@ -214,6 +214,40 @@ describe('client shell', () => {
     demo.assertClean();
   });
 
+  it('works from the keyboard alone, with visible focus', async () => {
+    const keys = await session();
+    const { page } = keys;
+    await page.goto('/sign-in');
+    const form = page.getByRole('form', { name: 'Sign in' });
+    await form.waitFor();
+    const focusedLabel = () =>
+      page.evaluate(() => {
+        const el = document.activeElement as HTMLElement | null;
+        return el?.getAttribute('aria-label') ?? (el?.id ? document.querySelector(`label[for="${el.id}"]`)?.textContent : el?.textContent) ?? '';
+      });
+    // Tab until the e-mail field has focus (the demo list, when shown, comes first).
+    for (let i = 0; i < 6 && (await focusedLabel()) !== 'E-mail'; i++) await page.keyboard.press('Tab');
+    expect(await focusedLabel()).toBe('E-mail');
+    await page.keyboard.type(DEMO_USERS[1].email);
+    await page.keyboard.press('Tab');
+    expect(await focusedLabel()).toBe('Password');
+    await page.keyboard.type(DEMO_PASSWORD);
+    await page.keyboard.press('Enter');
+    await page.waitForURL((url) => url.pathname === '/rooms');
+    await page.getByText(`Signed in as ${DEMO_USERS[1].displayName}`).waitFor();
+
+    // The first Tab on a signed-in page offers the skip link, then the app bar.
+    await page.keyboard.press('Tab');
+    expect(await focusedLabel()).toBe('Skip to content');
+    const outline = await page.evaluate(() => getComputedStyle(document.activeElement as Element).outlineStyle);
+    expect(outline).not.toBe('none');
+    await keys.screenshot('11-keyboard-skip-link');
+    await page.keyboard.press('Enter');
+    await page.keyboard.press('Tab');
+    expect(await focusedLabel()).toBe('Room name');
+    keys.assertClean();
+  });
+
   it('fits a narrow screen', async () => {
     const narrow = await openSession(browser, server.url, { viewport: { width: 390, height: 844 } });
     sessions.push(narrow);

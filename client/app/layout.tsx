@@ -16,12 +16,12 @@ export const clientLoader = (queryClient: QueryClient) => async (args: LoaderFun
   return null;
 };
 
-function AppBar({ displayName }: { displayName: string }) {
+function AppBar({ displayName, wide }: { displayName: string; wide: boolean }) {
   const signOut = useSignOut({ onSuccess: () => window.location.assign(paths.auth.signIn.getHref()) });
   return (
     <header className="border-b border-rule bg-card/80 backdrop-blur">
-      <div className="mx-auto flex max-w-6xl items-center justify-between gap-4 px-4 py-2.5">
-        <Link to={paths.rooms.getHref()} className="rounded-md text-ink" aria-label="Matchloom, your rooms">
+      <div className={cx('mx-auto flex items-center justify-between gap-4 px-4 py-2.5', wide ? 'max-w-none' : 'max-w-6xl')}>
+        <Link to={paths.rooms.getHref()} className="flex items-center rounded-md text-ink" aria-label="Matchloom, your rooms">
           <Wordmark />
         </Link>
         <nav aria-label="Account" className="flex items-center gap-3">
@@ -49,7 +49,7 @@ export default function AppLayout() {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-ink focus:px-3 focus:py-2 focus:text-paper">
         Skip to content
       </a>
-      <AppBar displayName={me?.displayName ?? ''} />
+      <AppBar displayName={me?.displayName ?? ''} wide={wide} />
       <main id="main" className={cx('mx-auto w-full flex-1 px-4', wide ? 'max-w-none py-4' : 'max-w-6xl py-6')}>
         <Suspense fallback={<Loading />}>
           <Outlet />
