@@ -32,7 +32,9 @@ export function reactiveStepsMerged(steps: readonly ReactiveStep[], zScale: numb
  * The element realising a step at angular frequency `omega`: X > 0 is a series L = X/ω, X < 0 a series
  * C = −1/(ωX); B > 0 is a shunt C = B/ω, B < 0 a shunt L = −1/(ωB) (common practice).
  */
-export function reactiveStepElement(step: ReactiveStep, omega: number): ElementDraft {
+export type ReactiveDraft = Extract<ElementDraft, { kind: 'series-l' | 'series-c' | 'shunt-l' | 'shunt-c' }>;
+
+export function reactiveStepElement(step: ReactiveStep, omega: number): ReactiveDraft {
   if (step.place === 'series')
     return step.x > 0 ? { kind: 'series-l', value: step.x / omega } : { kind: 'series-c', value: -1 / (omega * step.x) };
   return step.b > 0 ? { kind: 'shunt-c', value: step.b / omega } : { kind: 'shunt-l', value: -1 / (omega * step.b) };

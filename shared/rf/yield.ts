@@ -29,7 +29,7 @@ export interface YieldOptions {
   readonly sensitivityTrials?: number;
   /** Compute the sweep envelope (default true). */
   readonly envelope?: boolean;
-  readonly onProgress?: (p: { readonly trialsDone: number; readonly passFraction: number }) => void;
+  readonly onProgress?: (p: YieldProgress) => void;
   readonly shouldStop?: () => boolean;
   readonly signal?: AbortSignal;
 }
@@ -146,8 +146,17 @@ function checkOptions(o: YieldOptions): void {
   if (o.seed !== undefined && !Number.isFinite(o.seed)) throw new YieldOptionError('seed', 'must be a finite number');
 }
 
-/** Run the yield Monte Carlo. */
-export function yieldRun(design: Design, options: YieldOptions = {}): YieldResult {
+export interface YieldProgress {
+  readonly trialsDone: number;
+  readonly passFraction: number;
+}
+
+/**
+ * The yield run as a generator: yields progress every 250 trials (checking `shouldStop` and `signal`
+ * there), returns the result. `yieldRun` runs it synchronously, `yieldRunAsync` hands the thread back
+ * between slices so an AbortSignal can fire.
+ */
+export function* yieldSteps(design: Design, options: YieldOptions = {}): Generator<YieldProgress, YieldResult> {
   checkOptions(options);
   const trials = options.trials ?? 1000;
   const seed = options.seed ?? 1;
@@ -165,30 +174,42 @@ export function yieldRun(design: Design, options: YieldOptions = {}): YieldResul
   const npt = sweepFreqs.length;
   const envMin = new Float64Array(npt).fill(Infinity);
   const envMax = new Float64Array(npt).fill(0);
+  // With the sweep evaluated anyway, the band's worst is taken from its sweep points inside the band
+  // plus a two-point evaluation of the band edges (the same set as bandFrequencies).
+  const { startHz, stopHz } = design.band;
+  const edges = sweep ? bandScratch(sweepContext(design, stopHz > startHz ? Float64Array.of(startHz, stopHz) : Float64Array.of(startHz))) : null;
+  let first = 0;
+  while (first < npt && !(sweepFreqs[first] > startHz)) first++;
+  let last = npt - 1;
+  while (last >= 0 && !(sweepFreqs[last] < stopHz)) last--;
   let done = 0;
   let passes = 0;
   let stopped = false;
   const drawn = elements.slice();
   for (; done < trials; done++) {
     if (done % 250 === 0 && done > 0) {
-      options.onProgress?.({ trialsDone: done, passFraction: passes / done });
+      yield { trialsDone: done, passFraction: passes / done };
       if (stop()) {
         stopped = true;
         break;
       }
     }
     for (let k = 0; k < elements.length; k++) drawn[k] = elementDrawn(elements[k], prng);
-    const w = bandWorstGamma(band, drawn);
-    worst[done] = w;
-    if (w <= gammaMax) passes++;
-    if (sweep) {
+    let w: number;
+    if (sweep && edges) {
       const g = bandGamma(sweep, drawn);
+      let w2 = 0;
       for (let i = 0; i < npt; i++) {
-        const m = Math.hypot(g[2 * i], g[2 * i + 1]);
+        const m2 = g[2 * i] * g[2 * i] + g[2 * i + 1] * g[2 * i + 1];
+        const m = Math.sqrt(m2);
         if (m < envMin[i]) envMin[i] = m;
         if (m > envMax[i]) envMax[i] = m;
+        if (i >= first && i <= last && !(m2 <= w2)) w2 = Number.isFinite(m2) ? m2 : 1;
       }
-    }
+      w = Math.max(Math.sqrt(w2), bandWorstGamma(edges, drawn));
+    } else w = bandWorstGamma(band, drawn);
+    worst[done] = w;
+    if (w <= gammaMax) passes++;
   }
   const ran = worst.subarray(0, done);
   const vswr = ran.map(vswrOf);
@@ -225,4 +246,32 @@ export function yieldRun(design: Design, options: YieldOptions = {}): YieldResul
     variedIds,
     stopped,
   };
+}
+
+/** Run the yield Monte Carlo to the end (or until stopped) on this thread, reporting through `onProgress`. */
+export function yieldRun(design: Design, options: YieldOptions = {}): YieldResult {
+  const run = yieldSteps(design, options);
+  let r = run.next();
+  while (!r.done) {
+    options.onProgress?.(r.value);
+    r = run.next();
+  }
+  return r.value;
+}
+
+/** The same, yielding to the event loop every `sliceMs` (default 12) so that an AbortSignal is seen. */
+export async function yieldRunAsync(design: Design, options: YieldOptions & { readonly sliceMs?: number } = {}): Promise<YieldResult> {
+  const sliceMs = options.sliceMs ?? 12;
+  const run = yieldSteps(design, options);
+  let sliceStart = Date.now();
+  let r = run.next();
+  while (!r.done) {
+    options.onProgress?.(r.value);
+    if (Date.now() - sliceStart >= sliceMs) {
+      await new Promise<void>((resolve) => setTimeout(resolve, 0));
+      sliceStart = Date.now();
+    }
+    r = run.next();
+  }
+  return r.value;
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '../../shared/rf/index';
 import { parseDesign, type Design, type DesignInput, type Element } from '../../shared/rf/design';
-import { elementDrawn, percentileSorted, yieldRun, YieldOptionError } from '../../shared/rf/yield';
+import { elementDrawn, percentileSorted, yieldRun, yieldRunAsync, YieldOptionError } from '../../shared/rf/yield';
 import { prngFrom } from '../../shared/rf/prng';
 
 const FC = 2.44e9;
@@ -17,7 +17,7 @@ function designOf(elements: DesignInput['elements']): Design {
     elements,
   });
 }
-const ladder = (tol: (i: number) => DesignInput['elements'][number]['tolerance']) =>
+const ladder = (tol: (i: number) => NonNullable<DesignInput['elements']>[number]['tolerance']) =>
   designOf([
     { id: 'L1', kind: 'series-l', value: 1.85e-9, tolerance: tol(0) },
     { id: 'L2', kind: 'shunt-l', value: 3.55e-10, tolerance: tol(1) },
@@ -98,6 +98,27 @@ describe('yieldRun', () => {
     const r = yieldRun(d, { trials: 5000, seed: 1, shouldStop: () => ++calls >= 2 });
     expect(r.stopped).toBe(true);
     expect(r.trials).toBe(500);
+  });
+
+  it('yieldRunAsync is cancelled by an AbortSignal and reports progress; uncancelled it equals yieldRun (common practice)', async () => {
+    const d = ladder(() => ({ relative: 0.05 }));
+    const ac = new AbortController();
+    const seen: number[] = [];
+    const r = await yieldRunAsync(d, {
+      trials: 1_000_000,
+      seed: 3,
+      signal: ac.signal,
+      sliceMs: 1,
+      onProgress: (p) => {
+        seen.push(p.trialsDone);
+        if (p.trialsDone >= 1000) ac.abort();
+      },
+    });
+    expect(r.stopped).toBe(true);
+    expect(r.trials).toBeLessThan(1_000_000);
+    expect(seen[0]).toBe(250);
+    const a = await yieldRunAsync(d, { trials: 300, seed: 3 });
+    expect(a).toEqual(yieldRun(d, { trials: 300, seed: 3 }));
   });
 
   it('yieldRun rejects bad options and percentileSorted interpolates (type 7; common practice)', () => {
