@@ -80,13 +80,29 @@ function valueOf(mantissa: number, decade: number): number {
   return Number(`${mantissa}e${decade}`);
 }
 
-/** The preferred values of `decade`, with the last of the decade below and the first of the decade above. */
-function candidates(value: number, series: ESeries): number[] {
+/**
+ * The preferred values around `value`, ascending: four consecutive entries of the series counted
+ * across decades, two at or below `value` and two above (enough to absorb rounding in `value / 10^d`).
+ */
+function around(value: number, series: ESeries): number[] {
   const t = table(series);
+  const n = t.length;
   const decade = Math.floor(Math.log10(value));
+  const m = value / 10 ** decade;
+  // The last entry not above m (index -1 when m is a hair below 1.0).
+  let lo = -1;
+  let hi = n;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (t[mid] <= m) lo = mid;
+    else hi = mid;
+  }
+  const k0 = decade * n + lo;
   const out: number[] = [];
-  for (let d = decade - 1; d <= decade + 1; d++) for (const m of t) out.push(valueOf(m, d));
-  out.push(valueOf(1, decade + 2));
+  for (let k = k0 - 1; k <= k0 + 2; k++) {
+    const d = Math.floor(k / n);
+    out.push(valueOf(t[k - d * n], d));
+  }
   return out;
 }
 
@@ -96,7 +112,7 @@ export function nearestPreferred(value: number, series: ESeries): number {
   const lv = Math.log(value);
   let best = Number.NaN;
   let bestDist = Infinity;
-  for (const c of candidates(value, series)) {
+  for (const c of around(value, series)) {
     const dist = Math.abs(Math.log(c) - lv);
     if (dist < bestDist - 1e-12 || (Math.abs(dist - bestDist) <= 1e-12 && c > best)) {
       best = c;
@@ -109,16 +125,17 @@ export function nearestPreferred(value: number, series: ESeries): number {
 /** The smallest preferred value strictly greater than `value` (a value within 1e-9 of a preferred value counts as that value). */
 export function nextPreferredUp(value: number, series: ESeries): number {
   checkValue(value);
-  for (const c of candidates(value, series)) if (c > value * (1 + SAME)) return c;
-  throw new ESeriesError(`no preferred value above ${value}`);
+  const cs = around(value, series);
+  for (const c of cs) if (c > value * (1 + SAME)) return c;
+  return cs[cs.length - 1];
 }
 
 /** The largest preferred value strictly smaller than `value` (a value within 1e-9 of a preferred value counts as that value). */
 export function nextPreferredDown(value: number, series: ESeries): number {
   checkValue(value);
-  const cs = candidates(value, series);
+  const cs = around(value, series);
   for (let i = cs.length - 1; i >= 0; i--) if (cs[i] < value * (1 - SAME)) return cs[i];
-  throw new ESeriesError(`no preferred value below ${value}`);
+  return cs[0];
 }
 
 /** True when `value` lies within `relTol` (relative, default 1e-6) of a preferred value of `series`. */

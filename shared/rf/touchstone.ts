@@ -116,13 +116,6 @@ function parseOptionLine(body: string, line: number): Options {
   return opts;
 }
 
-function pairToComplex(a: number, b: number, format: Format): [number, number] {
-  if (format === 'RI') return [a, b];
-  const mag = format === 'MA' ? a : 10 ** (a / 20);
-  const rad = (b * Math.PI) / 180;
-  return [mag * Math.cos(rad), mag * Math.sin(rad)];
-}
-
 /** 2×2 complex matrix inverse of m = [a, b; c, d] (interleaved, row-major); null when singular. */
 function invert2(m: readonly number[]): number[] | null {
   const [ar, ai, br, bi, cr, ci, dr, di] = m;
@@ -187,6 +180,45 @@ function toScattering(m: number[], ports: number, parameter: 'Z' | 'Y'): boolean
   return true;
 }
 
+/** Characters that separate numbers (as `\s` in a regular expression). */
+const WHITESPACE = /\s+/;
+
+/** How many whitespace-separated tokens a trimmed line holds, without allocating them. */
+function countTokens(body: string): number {
+  let count = 0;
+  let inToken = false;
+  for (let i = 0; i < body.length; i++) {
+    const c = body.charCodeAt(i);
+    const space = c === 32 || (c >= 9 && c <= 13) || (c > 127 && /\s/.test(body[i]));
+    if (space) inToken = false;
+    else if (!inToken) {
+      inToken = true;
+      count++;
+    }
+  }
+  return count;
+}
+
+/** A Float64Array that grows by doubling. */
+class GrowableArray {
+  private buf = new Float64Array(1024);
+  length = 0;
+  push(v: number): void {
+    if (this.length === this.buf.length) {
+      const next = new Float64Array(this.buf.length * 2);
+      next.set(this.buf);
+      this.buf = next;
+    }
+    this.buf[this.length++] = v;
+  }
+  last(): number {
+    return this.buf[this.length - 1];
+  }
+  toArray(): Float64Array {
+    return this.buf.slice(0, this.length);
+  }
+}
+
 /** Column position (in complex values) of each row-major entry, for the file's two-port order. */
 const ORDER_21_12 = [0, 2, 1, 3]; // file: N11 N21 N12 N22 -> row-major S11 S12 S21 S22
 const ORDER_12_21 = [0, 1, 2, 3];
@@ -241,7 +273,8 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
   if (opts.ports !== undefined && opts.ports !== 1 && opts.ports !== 2) {
     throw new RangeError(`parseTouchstone: ports must be 1 or 2, got ${String(opts.ports)}`);
   }
-  if (typeof text !== 'string' || text.trim() === '') throw new TouchstoneError(1, 'the file is empty');
+  if (typeof text !== 'string') throw new TouchstoneError(1, 'expected the text of a Touchstone file');
+  if (text.trim() === '') throw new TouchstoneError(1, 'the file is empty');
 
   const st: State = {
     opts: null,
@@ -257,11 +290,13 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
     noiseStarted: false,
   };
   const comments: string[] = [];
-  const freqs: number[] = [];
-  const values: number[] = [];
+  const freqs = new GrowableArray();
+  const values = new GrowableArray();
+  const scratchNums = new Float64Array(8);
+  const m = new Array<number>(8).fill(0);
 
   // The record being gathered (a frequency and its values, possibly wrapped over several lines).
-  let record: string[] = [];
+  const record: string[] = [];
   let recordLine = 0;
   let recordLastLine = 0;
   let lastLine = 0;
@@ -272,45 +307,60 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
     const ports = st.ports!;
     const f = parseScaled(record[0], o.exponent, recordLine);
     if (f < 0) throw new TouchstoneError(recordLine, `frequencies must not be negative, found ${record[0]}`);
-    if (freqs.length && !(f > freqs[freqs.length - 1])) throw new TouchstoneError(recordLine, 'frequencies must increase');
-    const nums: number[] = [];
-    for (let k = 1; k < record.length; k++) nums.push(parseNumber(record[k], recordLine));
-    const complexes: [number, number][] = [];
-    for (let k = 0; k < nums.length; k += 2) complexes.push(pairToComplex(nums[k], nums[k + 1], o.format));
-    const m = new Array<number>(2 * ports * ports);
+    if (freqs.length && !(f > freqs.last())) throw new TouchstoneError(recordLine, 'frequencies must increase');
+    // Complex values in file order, as re, im pairs.
+    const pairs = (record.length - 1) / 2;
+    for (let k = 0; k < pairs; k++) {
+      const a = parseNumber(record[1 + 2 * k], recordLine);
+      const b = parseNumber(record[2 + 2 * k], recordLine);
+      if (o.format === 'RI') {
+        scratchNums[2 * k] = a;
+        scratchNums[2 * k + 1] = b;
+      } else {
+        const mag = o.format === 'MA' ? a : 10 ** (a / 20);
+        const rad = (b * Math.PI) / 180;
+        scratchNums[2 * k] = mag * Math.cos(rad);
+        scratchNums[2 * k + 1] = mag * Math.sin(rad);
+      }
+    }
+    const n = 2 * ports * ports;
     if (ports === 1) {
-      m[0] = complexes[0][0];
-      m[1] = complexes[0][1];
+      m[0] = scratchNums[0];
+      m[1] = scratchNums[1];
     } else if (st.matrix === 'full') {
       for (let rm = 0; rm < 4; rm++) {
-        const c = complexes[st.order[rm]];
-        m[rm * 2] = c[0];
-        m[rm * 2 + 1] = c[1];
+        const c = st.order[rm];
+        m[rm * 2] = scratchNums[2 * c];
+        m[rm * 2 + 1] = scratchNums[2 * c + 1];
       }
     } else {
       // Lower: N11 N21 N22; upper: N11 N12 N22. The matrix is reciprocal (N12 = N21).
-      const [n11, off, n22] = complexes;
-      m.splice(0, 8, n11[0], n11[1], off[0], off[1], off[0], off[1], n22[0], n22[1]);
+      m[0] = scratchNums[0];
+      m[1] = scratchNums[1];
+      m[2] = m[4] = scratchNums[2];
+      m[3] = m[5] = scratchNums[3];
+      m[6] = scratchNums[4];
+      m[7] = scratchNums[5];
     }
     if (o.parameter !== 'S') {
       const r = o.referenceOhms;
       // v2 data are in ohms / siemens; v1 data are already normalised to R.
-      if (st.version2) for (let k = 0; k < m.length; k++) m[k] = o.parameter === 'Z' ? m[k] / r : m[k] * r;
+      if (st.version2) for (let k = 0; k < n; k++) m[k] = o.parameter === 'Z' ? m[k] / r : m[k] * r;
       if (!toScattering(m, ports, o.parameter)) {
         throw new TouchstoneError(recordLine, `${o.parameter}-parameters at ${record[0]} cannot be converted to S (singular matrix)`);
       }
     }
-    for (const v of m) {
-      if (!Number.isFinite(v)) throw new TouchstoneError(recordLine, 'value out of range');
+    for (let k = 0; k < n; k++) {
+      if (!Number.isFinite(m[k])) throw new TouchstoneError(recordLine, 'value out of range');
     }
     freqs.push(f);
-    for (const v of m) values.push(v);
-    record = [];
+    for (let k = 0; k < n; k++) values.push(m[k]);
+    record.length = 0;
   };
 
   const recordSpan = () => (recordLastLine > recordLine ? ` (lines ${recordLine}–${recordLastLine})` : '');
 
-  const lines = text.split(/\r\n|\r|\n/);
+  const lines = (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text).split(/\r\n|\r|\n/);
   for (let li = 0; li < lines.length; li++) {
     const lineNo = li + 1;
     let raw = lines[li];
@@ -342,7 +392,18 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
       continue;
     }
 
-    const tokens = body.split(/\s+/);
+    // Count first, so that a huge line with far too many numbers fails without being split.
+    const count = countTokens(body);
+    if (st.ports !== null && st.section !== 'noise' && !st.noiseStarted && !st.pendingReference) {
+      const need = valuesPerRecord(st.ports, st.matrix);
+      if (record.length === 0 && count > need) throw new TouchstoneError(lineNo, `${recordDescription(st.ports, st.matrix)}, found ${count}`);
+    } else if (st.ports === null && count !== 3 && count !== 9 && !st.pendingReference && st.section !== 'noise') {
+      throw new TouchstoneError(
+        lineNo,
+        `expected 3 numbers (one-port: frequency and 1 complex value) or 9 (two-port: frequency and 4 complex values), found ${count}; only one- and two-port data are supported`,
+      );
+    }
+    const tokens = body.split(WHITESPACE);
     if (st.pendingReference) {
       const pr = st.pendingReference;
       for (const t of tokens) pr.values.push(parseNumber(t, lineNo));
@@ -369,7 +430,7 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
       // no higher than the last one; each noise line holds 5 numbers.
       if (!st.version2 && st.ports === 2 && freqs.length > 0 && tokens.length === 5) {
         const f = parseScaled(tokens[0], (st.opts ?? { exponent: 9 }).exponent, lineNo);
-        if (f <= freqs[freqs.length - 1]) {
+        if (f <= freqs.last()) {
           st.noiseStarted = true;
           for (const t of tokens) parseNumber(t, lineNo);
           continue;
@@ -398,8 +459,8 @@ export function parseTouchstone(text: string, opts: { ports?: number } = {}): To
   const opt = st.opts!;
   const data: TouchstoneData = {
     ports: st.ports!,
-    frequenciesHz: Float64Array.from(freqs),
-    s: Float64Array.from(values),
+    frequenciesHz: freqs.toArray(),
+    s: values.toArray(),
     referenceOhms: st.referenceFromKeyword ?? opt.referenceOhms,
   };
   if (comments.length) data.comments = comments;
