@@ -74,9 +74,14 @@ export function createApp(deps: AppDeps): express.Express {
     pinoHttp({
       logger: deps.logger,
       autoLogging: { ignore: (req) => req.url === '/api/health' },
-      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'info' : 'debug'),
+      customLogLevel: (_req, res, err) =>
+        err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'info' : 'debug',
       serializers: {
-        req: (req: { method: string; url: string; id: unknown }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { method: string; url: string; id: unknown }) => ({
+          id: req.id,
+          method: req.method,
+          url: req.url,
+        }),
       },
     }),
   );
@@ -85,7 +90,12 @@ export function createApp(deps: AppDeps): express.Express {
   api.use(healthRoutes(deps.isReady, deps.demoAccounts));
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
   api.use(cookieParser());
-  api.use(originCheck({ publicUrl: deps.config.publicUrl, allowLoopbackOrigins: deps.config.nodeEnv === 'development' }));
+  api.use(
+    originCheck({
+      publicUrl: deps.config.publicUrl,
+      allowLoopbackOrigins: deps.config.nodeEnv === 'development',
+    }),
+  );
   api.use(sessionMiddleware(deps));
   api.use(authRoutes(deps));
   api.use(roomRoutes(deps));

@@ -25,7 +25,9 @@ export function clientBuildIsStale(root = process.cwd()): boolean {
   const index = resolve(root, 'dist/client/index.html');
   if (!existsSync(index)) return true;
   const built = statSync(index).mtimeMs;
-  const sources = Math.max(...['client', 'shared', 'vite.config.ts'].map((p) => newestMtime(resolve(root, p))));
+  const sources = Math.max(
+    ...['client', 'shared', 'vite.config.ts'].map((p) => newestMtime(resolve(root, p))),
+  );
   return sources > built;
 }
 

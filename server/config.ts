@@ -5,7 +5,7 @@
  */
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
+import { dirname, resolve } from 'node:path';
 import { z } from 'zod';
 
 export interface Config {
@@ -60,7 +60,10 @@ const wholeNumber = (name: string, min: number, max: number, fallback: number) =
         if (v === undefined) return fallback;
         const n = Number(v.trim());
         if (!/^\d+$/.test(v.trim()) || !Number.isSafeInteger(n) || n < min || n > max) {
-          ctx.addIssue({ code: 'custom', message: `${name} must be a whole number from ${min} to ${max} (got ${JSON.stringify(v)})` });
+          ctx.addIssue({
+            code: 'custom',
+            message: `${name} must be a whole number from ${min} to ${max} (got ${JSON.stringify(v)})`,
+          });
           return z.NEVER;
         }
         return n;
@@ -84,9 +87,16 @@ const envSchema = z.object({
   SEED_DEMO: flag('SEED_DEMO', true),
   NODE_ENV: z.preprocess(
     blankToUndefined,
-    z.enum(['development', 'production', 'test'], { error: 'NODE_ENV must be development, production or test' }).default('development'),
+    z
+      .enum(['development', 'production', 'test'], {
+        error: 'NODE_ENV must be development, production or test',
+      })
+      .default('development'),
   ),
-  JWT_SECRET: z.preprocess(blankToUndefined, z.string().min(32, 'JWT_SECRET must be at least 32 characters').optional()),
+  JWT_SECRET: z.preprocess(
+    blankToUndefined,
+    z.string().min(32, 'JWT_SECRET must be at least 32 characters').optional(),
+  ),
   SMTP_URL: url('SMTP_URL'),
   PUBLIC_URL: url('PUBLIC_URL'),
   LOG_LEVEL: z.preprocess(
@@ -99,11 +109,12 @@ const envSchema = z.object({
 
 /**
  * Outside production a missing JWT_SECRET is replaced by a random one kept in a file beside the
- * database, so sessions survive a restart. (An in-memory database gets a fresh secret each time.)
+ * database (`<DATABASE_FILE>.jwt-secret`), so sessions survive a restart. (An in-memory database gets a fresh secret each time.)
  */
 function devSecret(databaseFile: string): Uint8Array {
   if (databaseFile === ':memory:') return randomBytes(32);
-  const file = join(dirname(resolve(databaseFile)), '.matchloom-jwt-secret');
+  // `<database file>.jwt-secret`: beside the database, and git-ignored with it (db/*.sqlite3*).
+  const file = `${resolve(databaseFile)}.jwt-secret`;
   try {
     if (existsSync(file)) {
       const text = readFileSync(file, 'utf8').trim();
@@ -114,7 +125,9 @@ function devSecret(databaseFile: string): Uint8Array {
     writeFileSync(file, text + '\n', { mode: 0o600 });
     return new TextEncoder().encode(text);
   } catch (e) {
-    throw new ConfigError(`JWT_SECRET is not set and the secret file ${file} cannot be written (${(e as Error).message})`);
+    throw new ConfigError(
+      `JWT_SECRET is not set and the secret file ${file} cannot be written (${(e as Error).message})`,
+    );
   }
 }
 
@@ -125,10 +138,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     const issue = parsed.error.issues[0];
     const key = String(issue?.path[0] ?? '');
     const message = issue?.message ?? 'is not valid';
-    throw new ConfigError(`Invalid configuration: ${message.startsWith(key) ? message : `${key}: ${message}`}`);
+    throw new ConfigError(
+      `Invalid configuration: ${message.startsWith(key) ? message : `${key}: ${message}`}`,
+    );
   }
   const e = parsed.data;
-  if (e.NODE_ENV === 'production' && !e.JWT_SECRET) throw new ConfigError('Invalid configuration: JWT_SECRET is required in production (at least 32 characters)');
+  if (e.NODE_ENV === 'production' && !e.JWT_SECRET)
+    throw new ConfigError(
+      'Invalid configuration: JWT_SECRET is required in production (at least 32 characters)',
+    );
   return {
     port: e.PORT,
     host: e.HOST,

@@ -8,12 +8,24 @@ import { createServer } from 'vite';
 
 const apiPort = process.env.API_PORT || '3001';
 
-const api = spawn(resolve('node_modules/.bin/tsx'), ['watch', '--clear-screen=false', 'server/start.ts', '--api-only'], {
-  stdio: 'inherit',
-  env: { ...process.env, PORT: apiPort, API_PORT: apiPort, NODE_ENV: process.env.NODE_ENV || 'development' },
-});
+const api = spawn(
+  resolve('node_modules/.bin/tsx'),
+  ['watch', '--clear-screen=false', 'server/start.ts', '--api-only'],
+  {
+    stdio: 'inherit',
+    env: {
+      ...process.env,
+      PORT: apiPort,
+      API_PORT: apiPort,
+      NODE_ENV: process.env.NODE_ENV || 'development',
+    },
+  },
+);
 
-const vite = await createServer({ configFile: resolve('vite.config.ts'), server: { port: Number(process.env.VITE_PORT || process.env.PORT || 5173) } });
+const vite = await createServer({
+  configFile: resolve('vite.config.ts'),
+  server: { port: Number(process.env.VITE_PORT || process.env.PORT || 5173) },
+});
 await vite.listen();
 vite.printUrls();
 process.stdout.write(`  API: http://localhost:${apiPort}/api (proxied by Vite)\n`);

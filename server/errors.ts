@@ -19,9 +19,11 @@ export class HttpError extends Error {
   }
 }
 
-export const badRequest = (message: string, extra?: Record<string, unknown>) => new HttpError(400, 'invalid-input', message, extra);
+export const badRequest = (message: string, extra?: Record<string, unknown>) =>
+  new HttpError(400, 'invalid-input', message, extra);
 export const unauthenticated = (message = 'Sign in first.') => new HttpError(401, 'unauthenticated', message);
-export const forbidden = (message = 'Your role in this room does not allow that.') => new HttpError(403, 'forbidden', message);
+export const forbidden = (message = 'Your role in this room does not allow that.') =>
+  new HttpError(403, 'forbidden', message);
 export const notFound = (message = 'Not found.') => new HttpError(404, 'not-found', message);
 export const conflict = (code: string, message: string) => new HttpError(409, code, message);
 
@@ -60,14 +62,20 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         body = { code: 'bad-json', message: 'The request body is not valid JSON.' };
       } else if (e.type === 'entity.too.large') {
         status = 413;
-        body = { code: 'too-large', message: `The request body is larger than the limit${e.limit ? ` of ${e.limit} bytes` : ''}.` };
+        body = {
+          code: 'too-large',
+          message: `The request body is larger than the limit${e.limit ? ` of ${e.limit} bytes` : ''}.`,
+        };
       } else if (err instanceof URIError) {
         status = 400;
         body = { code: 'bad-request', message: 'The address is not validly encoded.' };
       } else if (typeof s === 'number' && s >= 400 && s < 500) {
         // body-parser and the router's own refusals (bad charset or encoding, a malformed path, ...)
         status = s;
-        body = { code: 'bad-request', message: e.expose && e.message ? e.message : 'The request could not be read.' };
+        body = {
+          code: 'bad-request',
+          message: e.expose && e.message ? e.message : 'The request could not be read.',
+        };
       }
     }
     if (status >= 500) (req.log ?? logger).error({ err }, 'request failed');

@@ -22,7 +22,10 @@ export const REDACT_PATHS = [
 ];
 
 /** A JSON logger to standard output (or `destination`, which tests use to read the lines). */
-export function createLogger(config: Pick<Config, 'logLevel' | 'nodeEnv'>, destination?: DestinationStream): Logger {
+export function createLogger(
+  config: Pick<Config, 'logLevel' | 'nodeEnv'>,
+  destination?: DestinationStream,
+): Logger {
   const options = {
     level: config.logLevel,
     base: { app: 'matchloom' },

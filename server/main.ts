@@ -46,7 +46,8 @@ export async function startServer(config: Config, options: StartOptions = {}): P
       const { created } = await seedDemo(knex, { bcryptCost: config.bcryptCost });
       if (created) logger.info('demo rooms and accounts created');
     }
-    demoAccounts = config.nodeEnv !== 'production' && (await findUserByEmail(knex, DEMO_USERS[0].email)) !== null;
+    demoAccounts =
+      config.nodeEnv !== 'production' && (await findUserByEmail(knex, DEMO_USERS[0].email)) !== null;
   } catch (e) {
     await knex.destroy();
     throw e;

@@ -35,7 +35,9 @@ async function main(): Promise<void> {
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
     const reason =
-      err.code === 'EADDRINUSE' ? `port ${config.port} on ${config.host} is already in use (set PORT to another port)` : err.message;
+      err.code === 'EADDRINUSE'
+        ? `port ${config.port} on ${config.host} is already in use (set PORT to another port)`
+        : err.message;
     process.stderr.write(`matchloom: could not start: ${reason}\n`);
     process.exit(1);
   }

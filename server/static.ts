@@ -19,7 +19,8 @@ export function clientRoutes(clientDir: string): Router | null {
       index: false,
       setHeaders(res, path) {
         // Hashed assets can be cached for good; everything else is revalidated.
-        if (path.includes(`${join(clientDir, 'assets')}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        if (path.includes(`${join(clientDir, 'assets')}`))
+          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
       },
     }),
   );

@@ -16,8 +16,10 @@ function valueAt(value: unknown, path: readonly PropertyKey[]): unknown {
 }
 
 function describe(issue: z.core.$ZodIssue, input: unknown): string {
-  if (issue.path.length > 0 && issue.code !== 'custom' && valueAt(input, issue.path) === undefined) return 'is required';
-  if (issue.code === 'unrecognized_keys') return `has unknown field(s) ${issue.keys.map((k) => JSON.stringify(k)).join(', ')}`;
+  if (issue.path.length > 0 && issue.code !== 'custom' && valueAt(input, issue.path) === undefined)
+    return 'is required';
+  if (issue.code === 'unrecognized_keys')
+    return `has unknown field(s) ${issue.keys.map((k) => JSON.stringify(k)).join(', ')}`;
   return issue.message;
 }
 
@@ -36,7 +38,9 @@ function badRequestThrow(field: string, reason: string): never {
 
 /** A JSON body must be an object (express leaves `req.body` undefined for other content types). */
 export function bodyObject<T extends z.ZodRawShape>(shape: T) {
-  return z.object(shape, { error: 'the request body must be a JSON object (Content-Type: application/json)' });
+  return z.object(shape, {
+    error: 'the request body must be a JSON object (Content-Type: application/json)',
+  });
 }
 
 export const emailSchema = z
@@ -46,7 +50,9 @@ export const emailSchema = z
   .max(320, 'must be at most 320 characters')
   .pipe(z.email({ error: 'must be a valid e-mail address' }));
 
-export const roleSchema = z.enum(['owner', 'tuner', 'observer'], { error: 'must be "owner", "tuner" or "observer"' });
+export const roleSchema = z.enum(['owner', 'tuner', 'observer'], {
+  error: 'must be "owner", "tuner" or "observer"',
+});
 
 export const idParam = z
   .string()

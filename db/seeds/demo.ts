@@ -34,7 +34,10 @@ function stateOf(design: DesignInput): Uint8Array {
   return state;
 }
 
-export async function seedDemo(knex: Knex, options: { bcryptCost?: number } = {}): Promise<{ created: boolean }> {
+export async function seedDemo(
+  knex: Knex,
+  options: { bcryptCost?: number } = {},
+): Promise<{ created: boolean }> {
   if (await findUserByEmail(knex, DEMO_USERS[0].email)) return { created: false };
   const hasher = createPasswordHasher(options.bcryptCost ?? DEFAULT_BCRYPT_COST);
   const hashes = await Promise.all(DEMO_USERS.map(() => hasher.hash(DEMO_PASSWORD)));
@@ -44,16 +47,32 @@ export async function seedDemo(knex: Knex, options: { bcryptCost?: number } = {}
     if (await findUserByEmail(trx, DEMO_USERS[0].email)) return { created: false };
     const users: { userId: string; role: Role }[] = [];
     for (const [i, u] of DEMO_USERS.entries()) {
-      const user = await createUser(trx, { email: u.email, displayName: u.displayName, passwordHash: hashes[i] });
+      const user = await createUser(trx, {
+        email: u.email,
+        displayName: u.displayName,
+        passwordHash: hashes[i],
+      });
       users.push({ userId: user.id, role: u.role });
     }
     const owner = users[0].userId;
     const others = users.slice(1);
     const now = Date.now();
 
-    await createRoomIn(trx, { name: CHIP_ANTENNA_ROOM, ownerId: owner, design: chipAntennaDesign(), members: others, now: now - 1 * HOUR });
+    await createRoomIn(trx, {
+      name: CHIP_ANTENNA_ROOM,
+      ownerId: owner,
+      design: chipAntennaDesign(),
+      members: others,
+      now: now - 1 * HOUR,
+    });
 
-    const whipRoom = await createRoomIn(trx, { name: WHIP_ROOM, ownerId: owner, design: whipE12Design(), members: others, now: now - 5 * HOUR });
+    const whipRoom = await createRoomIn(trx, {
+      name: WHIP_ROOM,
+      ownerId: owner,
+      design: whipE12Design(),
+      members: others,
+      now: now - 5 * HOUR,
+    });
     await insertSnapshot(trx, {
       roomId: whipRoom,
       label: 'first cut',

@@ -14,7 +14,9 @@ import { HttpError } from '../errors';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 const LOOPBACK_HOSTNAMES = new Set(['localhost', '127.0.0.1', '[::1]']);
 
-export function originCheck(options: { publicUrl?: string; allowLoopbackOrigins?: boolean } = {}): RequestHandler {
+export function originCheck(
+  options: { publicUrl?: string; allowLoopbackOrigins?: boolean } = {},
+): RequestHandler {
   const publicHost = options.publicUrl ? new URL(options.publicUrl).host.toLowerCase() : null;
   return (req, _res, next) => {
     const origin = req.get('origin');
@@ -30,7 +32,8 @@ export function originCheck(options: { publicUrl?: string; allowLoopbackOrigins?
       const own = new Set([(req.get('host') ?? '').toLowerCase(), publicHost]);
       // Only a proxy on this machine may name the host the browser used (trust proxy: loopback).
       const forwarded = req.get('x-forwarded-host');
-      if (forwarded && req.ip && /^(127\.|::1$|::ffff:127\.)/.test(req.ip)) own.add(forwarded.split(',')[0].trim().toLowerCase());
+      if (forwarded && req.ip && /^(127\.|::1$|::ffff:127\.)/.test(req.ip))
+        own.add(forwarded.split(',')[0].trim().toLowerCase());
       if (own.has(host)) return next();
       if (options.allowLoopbackOrigins && LOOPBACK_HOSTNAMES.has(url.hostname.toLowerCase())) return next();
     }

@@ -32,7 +32,11 @@ export function clearSessionCookie(res: Response, config: Pick<Config, 'nodeEnv'
 }
 
 /** The user a session cookie value names, if the token is valid and the account still exists. */
-export async function userFromSessionToken(knex: Knex, tokens: TokenService, token: unknown): Promise<PublicUser | null> {
+export async function userFromSessionToken(
+  knex: Knex,
+  tokens: TokenService,
+  token: unknown,
+): Promise<PublicUser | null> {
   if (typeof token !== 'string' || !token) return null;
   const session = await tokens.verifySession(token);
   return session ? findUserById(knex, session.userId) : null;

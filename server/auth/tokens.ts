@@ -33,7 +33,11 @@ export function createTokenService(secret: Uint8Array): TokenService {
   async function verify(token: string, audience: string) {
     if (typeof token !== 'string' || token.length === 0 || token.length > 4096) return null;
     try {
-      const { payload } = await jwtVerify(token, secret, { algorithms: [ALG], issuer: TOKEN_ISSUER, audience });
+      const { payload } = await jwtVerify(token, secret, {
+        algorithms: [ALG],
+        issuer: TOKEN_ISSUER,
+        audience,
+      });
       return typeof payload.sub === 'string' && payload.sub ? payload : null;
     } catch {
       return null; // expired, tampered, wrong audience or not a JWT at all

@@ -7,7 +7,11 @@ export function isRole(v: unknown): v is Role {
 }
 
 /** The user's role in the room, or null when the user is not a member (or the room does not exist). */
-export async function getRole(knex: Knex | Knex.Transaction, roomId: string, userId: string): Promise<Role | null> {
+export async function getRole(
+  knex: Knex | Knex.Transaction,
+  roomId: string,
+  userId: string,
+): Promise<Role | null> {
   const row = await knex('room_members').where({ room_id: roomId, user_id: userId }).first('role');
   return row && isRole(row.role) ? row.role : null;
 }

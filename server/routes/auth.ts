@@ -11,12 +11,19 @@ import type { AppDeps } from '../app';
 const passwordSchema = z
   .string({ error: 'must be a string' })
   .min(PASSWORD_MIN_CHARS, `must be at least ${PASSWORD_MIN_CHARS} characters`)
-  .refine((p) => Buffer.byteLength(p, 'utf8') <= PASSWORD_MAX_BYTES, `must be at most ${PASSWORD_MAX_BYTES} bytes`);
+  .refine(
+    (p) => Buffer.byteLength(p, 'utf8') <= PASSWORD_MAX_BYTES,
+    `must be at most ${PASSWORD_MAX_BYTES} bytes`,
+  );
 
 const signupBody = bodyObject({
   email: emailSchema,
   password: passwordSchema,
-  displayName: z.string({ error: 'must be a string' }).trim().min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
+  displayName: z
+    .string({ error: 'must be a string' })
+    .trim()
+    .min(1, 'must not be empty')
+    .max(80, 'must be at most 80 characters'),
 });
 
 // Sign-in checks only the shape: the length rules belong to sign-up, and a refusal must look the same

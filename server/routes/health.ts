@@ -8,7 +8,10 @@ export function healthRoutes(isReady: () => boolean, demoAccounts: () => boolean
   const r = Router();
   r.get('/health', (_req, res) => {
     if (isReady()) res.json(demoAccounts() ? { ok: true, demo: true } : { ok: true });
-    else res.status(503).json({ error: { code: 'not-ready', message: 'The server is starting or shutting down.' } });
+    else
+      res
+        .status(503)
+        .json({ error: { code: 'not-ready', message: 'The server is starting or shutting down.' } });
   });
   return r;
 }

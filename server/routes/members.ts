@@ -57,7 +57,12 @@ export function memberRoutes({ knex, events }: AppDeps): Router {
     const user = signedInUser(req);
     const userId = memberId(req.params.userId);
     // An owner may remove anyone; any member may remove themself (leave).
-    const { roomId } = await requireRoomRole(knex, req.params.id, user.id, userId === user.id ? undefined : ['owner']);
+    const { roomId } = await requireRoomRole(
+      knex,
+      req.params.id,
+      user.id,
+      userId === user.id ? undefined : ['owner'],
+    );
     await removeMember(knex, { roomId, userId });
     events.roleChanged(roomId, userId, null);
     res.status(204).end();

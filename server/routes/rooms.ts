@@ -71,7 +71,12 @@ export function roomRoutes({ knex, tokens, events }: AppDeps): Router {
       res.json(await loadRoomDesign(knex, roomId));
     } catch (e) {
       if (e instanceof DesignError)
-        throw new HttpError(409, 'invalid-design', `The room document does not hold a valid design: ${e.message}`, { path: e.path });
+        throw new HttpError(
+          409,
+          'invalid-design',
+          `The room document does not hold a valid design: ${e.message}`,
+          { path: e.path },
+        );
       throw e;
     }
   });

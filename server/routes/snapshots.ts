@@ -5,14 +5,24 @@ import { signedInUser } from '../auth/session';
 import { notFound } from '../errors';
 import { requireRoomRole } from '../rooms/access';
 import { EDITOR_ROLES } from '../rooms/membership';
-import { branchFromSnapshot, createSnapshot, getSnapshot, listSnapshots, snapshotRoomId } from '../services/snapshots';
+import {
+  branchFromSnapshot,
+  createSnapshot,
+  getSnapshot,
+  listSnapshots,
+  snapshotRoomId,
+} from '../services/snapshots';
 import { getRoomDetails } from '../services/rooms';
 import { bodyObject, check, idParam, roomNameSchema } from '../validate';
 import { ROOM_EVENTS } from '../../shared/collab/events';
 import type { AppDeps } from '../app';
 
 const snapshotBody = bodyObject({
-  label: z.string({ error: 'must be a string' }).trim().min(1, 'must not be empty').max(200, 'must be at most 200 characters'),
+  label: z
+    .string({ error: 'must be a string' })
+    .trim()
+    .min(1, 'must not be empty')
+    .max(200, 'must be at most 200 characters'),
   forReview: z.boolean({ error: 'must be true or false' }).optional(),
 });
 const branchBody = bodyObject({ name: roomNameSchema });
@@ -39,7 +49,12 @@ export function snapshotRoutes({ knex, events }: AppDeps): Router {
     const user = signedInUser(req);
     const { roomId } = await requireRoomRole(knex, req.params.id, user.id, EDITOR_ROLES);
     const body = check(snapshotBody, req.body);
-    const snapshot = await createSnapshot(knex, { roomId, label: body.label, userId: user.id, forReview: body.forReview });
+    const snapshot = await createSnapshot(knex, {
+      roomId,
+      label: body.label,
+      userId: user.id,
+      forReview: body.forReview,
+    });
     events.emit(roomId, ROOM_EVENTS.snapshotCreated, { roomId, snapshot });
     res.status(201).json(snapshot);
   });

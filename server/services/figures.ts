@@ -25,8 +25,13 @@ export function designFigures(design: Design): DesignFigures {
     const r = analyze(design);
     return {
       partCount,
-      worstInBand: { vswr: finiteOrNull(r.worstInBand.vswr), returnLossDb: finiteOrNull(r.worstInBand.returnLossDb) },
-      bandwidth: r.bandwidth ? { lowHz: r.bandwidth.lowHz, highHz: r.bandwidth.highHz, fractional: r.bandwidth.fractional } : null,
+      worstInBand: {
+        vswr: finiteOrNull(r.worstInBand.vswr),
+        returnLossDb: finiteOrNull(r.worstInBand.returnLossDb),
+      },
+      bandwidth: r.bandwidth
+        ? { lowHz: r.bandwidth.lowHz, highHz: r.bandwidth.highHz, fractional: r.bandwidth.fractional }
+        : null,
       goalMet: r.worstInBand.gammaMagnitude <= r.maxGamma,
       analysed: true,
     };

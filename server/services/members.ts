@@ -17,7 +17,8 @@ export type AddMemberResult =
   | { kind: 'added'; member: MemberView }
   | { kind: 'invited'; invitation: { id: string; email: string; role: Role; expiresAt: number } };
 
-const lastOwner = () => conflict('last-owner', 'A room needs at least one owner: make someone else an owner first.');
+const lastOwner = () =>
+  conflict('last-owner', 'A room needs at least one owner: make someone else an owner first.');
 const memberNotFound = () => notFound('That user is not a member of this room.');
 
 /**
@@ -34,8 +35,16 @@ export async function addMember(
     const now = Date.now();
     if (!user) {
       // One pending invitation per room and address: a repeated invitation replaces the earlier one.
-      await trx('invitations').where({ room_id: input.roomId, email: input.email }).whereNull('used_at').delete();
-      const invitation = { id: newId(), email: input.email, role: input.role, expiresAt: now + INVITATION_TTL_MS };
+      await trx('invitations')
+        .where({ room_id: input.roomId, email: input.email })
+        .whereNull('used_at')
+        .delete();
+      const invitation = {
+        id: newId(),
+        email: input.email,
+        role: input.role,
+        expiresAt: now + INVITATION_TTL_MS,
+      };
       await trx('invitations').insert({
         id: invitation.id,
         room_id: input.roomId,
@@ -47,8 +56,14 @@ export async function addMember(
       });
       return { kind: 'invited', invitation };
     }
-    if (await getRole(trx, input.roomId, user.id)) throw conflict('already-member', 'That user is already a member of this room.');
-    await trx('room_members').insert({ room_id: input.roomId, user_id: user.id, role: input.role, created_at: now });
+    if (await getRole(trx, input.roomId, user.id))
+      throw conflict('already-member', 'That user is already a member of this room.');
+    await trx('room_members').insert({
+      room_id: input.roomId,
+      user_id: user.id,
+      role: input.role,
+      created_at: now,
+    });
     await trx('rooms').where({ id: input.roomId }).update({ updated_at: now });
     const member = (await listMembers(trx, input.roomId)).find((m) => m.userId === user.id)!;
     return { kind: 'added', member };
@@ -61,12 +76,18 @@ async function ownerCount(trx: Knex.Transaction, roomId: string): Promise<number
 }
 
 /** Change a member's role; demoting the last owner is a 409. Returns the updated member. */
-export async function changeRole(knex: Knex, input: { roomId: string; userId: string; role: Role }): Promise<MemberView> {
+export async function changeRole(
+  knex: Knex,
+  input: { roomId: string; userId: string; role: Role },
+): Promise<MemberView> {
   return knex.transaction(async (trx) => {
     const current = await getRole(trx, input.roomId, input.userId);
     if (!current) throw memberNotFound();
-    if (current === 'owner' && input.role !== 'owner' && (await ownerCount(trx, input.roomId)) <= 1) throw lastOwner();
-    await trx('room_members').where({ room_id: input.roomId, user_id: input.userId }).update({ role: input.role });
+    if (current === 'owner' && input.role !== 'owner' && (await ownerCount(trx, input.roomId)) <= 1)
+      throw lastOwner();
+    await trx('room_members')
+      .where({ room_id: input.roomId, user_id: input.userId })
+      .update({ role: input.role });
     return (await listMembers(trx, input.roomId)).find((m) => m.userId === input.userId)!;
   });
 }
@@ -90,12 +111,21 @@ export interface InvitationView {
 }
 
 /** Pending (unused, unexpired) invitations of a room. */
-export async function listInvitations(knex: Knex | Knex.Transaction, roomId: string): Promise<InvitationView[]> {
+export async function listInvitations(
+  knex: Knex | Knex.Transaction,
+  roomId: string,
+): Promise<InvitationView[]> {
   const rows = await knex('invitations')
     .where({ room_id: roomId })
     .whereNull('used_at')
     .andWhere('expires_at', '>', Date.now())
     .orderBy('created_at', 'desc')
     .select('id', 'email', 'role', 'expires_at', 'created_at');
-  return rows.map((r) => ({ id: r.id, email: r.email, role: r.role, expiresAt: Number(r.expires_at), createdAt: Number(r.created_at) }));
+  return rows.map((r) => ({
+    id: r.id,
+    email: r.email,
+    role: r.role,
+    expiresAt: Number(r.expires_at),
+    createdAt: Number(r.created_at),
+  }));
 }

@@ -112,7 +112,10 @@ export async function listMembers(knex: Knex | Knex.Transaction, roomId: string)
   const rows = await knex('room_members as m')
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.room_id', roomId)
-    .orderBy([{ column: 'm.created_at', order: 'asc' }, { column: 'u.email', order: 'asc' }])
+    .orderBy([
+      { column: 'm.created_at', order: 'asc' },
+      { column: 'u.email', order: 'asc' },
+    ])
     .select('m.user_id', 'u.email', 'u.display_name', 'm.role', 'm.created_at');
   return rows.map((r) => ({
     userId: r.user_id,
@@ -124,7 +127,11 @@ export async function listMembers(knex: Knex | Knex.Transaction, roomId: string)
 }
 
 /** One room as the user sees it (null when the user is not a member). */
-export async function getRoomDetails(knex: Knex | Knex.Transaction, roomId: string, userId: string): Promise<RoomDetails | null> {
+export async function getRoomDetails(
+  knex: Knex | Knex.Transaction,
+  roomId: string,
+  userId: string,
+): Promise<RoomDetails | null> {
   const row = (await roomQuery(knex, userId).where('r.id', roomId).first()) as RoomRow | undefined;
   if (!row) return null;
   return { ...toSummary(row), createdBy: row.created_by, members: await listMembers(knex, roomId) };
@@ -158,9 +165,20 @@ export async function createRoomIn(trx: Knex.Transaction, input: NewRoom): Promi
     created_at: now,
     updated_at: now,
   });
-  const members = [{ userId: input.ownerId, role: 'owner' as Role }, ...(input.members ?? []).filter((m) => m.userId !== input.ownerId)];
-  await trx('room_members').insert(members.map((m) => ({ room_id: id, user_id: m.userId, role: m.role, created_at: now })));
-  if (input.state) await trx('room_states').insert({ room_id: id, state: Buffer.from(input.state), upto_id: 0, updated_at: now });
+  const members = [
+    { userId: input.ownerId, role: 'owner' as Role },
+    ...(input.members ?? []).filter((m) => m.userId !== input.ownerId),
+  ];
+  await trx('room_members').insert(
+    members.map((m) => ({ room_id: id, user_id: m.userId, role: m.role, created_at: now })),
+  );
+  if (input.state)
+    await trx('room_states').insert({
+      room_id: id,
+      state: Buffer.from(input.state),
+      upto_id: 0,
+      updated_at: now,
+    });
   else {
     await createRoomDocument(trx, id, input.design);
     await trx('room_states').where({ room_id: id }).update({ updated_at: now });

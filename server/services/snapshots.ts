@@ -57,7 +57,16 @@ function toView(r: SnapshotRow): SnapshotView {
 function snapshotQuery(knex: Knex | Knex.Transaction) {
   return knex('snapshots as s')
     .leftJoin('users as u', 'u.id', 's.created_by')
-    .select('s.id', 's.room_id', 's.label', 's.created_at', 's.created_by', 'u.display_name', 's.figures_json', 's.for_review');
+    .select(
+      's.id',
+      's.room_id',
+      's.label',
+      's.created_at',
+      's.created_by',
+      'u.display_name',
+      's.figures_json',
+      's.for_review',
+    );
 }
 
 export interface NewSnapshot {
@@ -104,7 +113,12 @@ export async function createSnapshot(
       return { design: readDesign(doc), state: Y.encodeStateAsUpdate(doc) };
     } catch (e) {
       if (e instanceof DesignError)
-        throw new HttpError(409, 'invalid-design', `The room document does not hold a valid design: ${e.message}`, { path: e.path });
+        throw new HttpError(
+          409,
+          'invalid-design',
+          `The room document does not hold a valid design: ${e.message}`,
+          { path: e.path },
+        );
       throw e;
     } finally {
       doc.destroy();
@@ -112,7 +126,14 @@ export async function createSnapshot(
   });
   let id: string;
   try {
-    id = await insertSnapshot(knex, { roomId: input.roomId, label: input.label, design, state, createdBy: input.userId, forReview: input.forReview });
+    id = await insertSnapshot(knex, {
+      roomId: input.roomId,
+      label: input.label,
+      design,
+      state,
+      createdBy: input.userId,
+      forReview: input.forReview,
+    });
   } catch (e) {
     // The room was deleted while the engine ran.
     if ((e as { code?: string }).code === 'SQLITE_CONSTRAINT_FOREIGNKEY') throw notFound('Room not found.');
@@ -133,16 +154,21 @@ export async function listSnapshots(knex: Knex | Knex.Transaction, roomId: strin
 }
 
 /** The room a snapshot belongs to (null when there is no such snapshot). */
-export async function snapshotRoomId(knex: Knex | Knex.Transaction, snapshotId: string): Promise<string | null> {
+export async function snapshotRoomId(
+  knex: Knex | Knex.Transaction,
+  snapshotId: string,
+): Promise<string | null> {
   const row = await knex('snapshots').where({ id: snapshotId }).first('room_id');
   return row ? String(row.room_id) : null;
 }
 
 /** One snapshot with its design file. */
-export async function getSnapshot(knex: Knex | Knex.Transaction, snapshotId: string): Promise<(SnapshotView & { design: Design }) | null> {
+export async function getSnapshot(
+  knex: Knex | Knex.Transaction,
+  snapshotId: string,
+): Promise<(SnapshotView & { design: Design }) | null> {
   const row = (await snapshotQuery(knex).select('s.design_json').where('s.id', snapshotId).first()) as
-    | (SnapshotRow & { design_json: string })
-    | undefined;
+    (SnapshotRow & { design_json: string }) | undefined;
   if (!row) return null;
   return { ...toView(row), design: parseDesign(JSON.parse(row.design_json)) };
 }
@@ -153,7 +179,12 @@ export async function getSnapshot(knex: Knex | Knex.Transaction, snapshotId: str
  */
 export async function branchFromSnapshot(
   knex: Knex,
-  input: { snapshotId: string; name: string; userId: string; members?: { userId: string; role: 'owner' | 'tuner' | 'observer' }[] },
+  input: {
+    snapshotId: string;
+    name: string;
+    userId: string;
+    members?: { userId: string; role: 'owner' | 'tuner' | 'observer' }[];
+  },
 ): Promise<string> {
   return knex.transaction(async (trx) => {
     const row = await trx('snapshots').where({ id: input.snapshotId }).first('state', 'design_json');

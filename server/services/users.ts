@@ -32,11 +32,16 @@ export async function findUserCredentials(
   knex: Knex | Knex.Transaction,
   email: string,
 ): Promise<{ user: PublicUser; passwordHash: string } | null> {
-  const row = (await knex('users').where({ email: normalizeEmail(email) }).first()) as UserRow | undefined;
+  const row = (await knex('users')
+    .where({ email: normalizeEmail(email) })
+    .first()) as UserRow | undefined;
   return row ? { user: toPublic(row), passwordHash: row.password_hash } : null;
 }
 
-export async function findUserByEmail(knex: Knex | Knex.Transaction, email: string): Promise<PublicUser | null> {
+export async function findUserByEmail(
+  knex: Knex | Knex.Transaction,
+  email: string,
+): Promise<PublicUser | null> {
   return (await findUserCredentials(knex, email))?.user ?? null;
 }
 
@@ -45,7 +50,8 @@ function isUniqueViolation(e: unknown): boolean {
   return code === 'SQLITE_CONSTRAINT_UNIQUE' || code === 'SQLITE_CONSTRAINT_PRIMARYKEY' || code === '23505';
 }
 
-export const EMAIL_TAKEN_MESSAGE = 'That e-mail address cannot be used to sign up. Sign in instead if it is yours.';
+export const EMAIL_TAKEN_MESSAGE =
+  'That e-mail address cannot be used to sign up. Sign in instead if it is yours.';
 
 /** Create an account; a second account for the same address is a 409 `email-taken`. */
 export async function createUser(

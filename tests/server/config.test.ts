@@ -21,8 +21,15 @@ function errorOf(env: NodeJS.ProcessEnv): string {
 describe('loadConfig', () => {
   it('gives the documented defaults', () => {
     const c = loadConfig(base);
-    expect(c).toMatchObject({ port: 3000, host: '0.0.0.0', seedDemo: true, nodeEnv: 'development', logLevel: 'info', bcryptCost: 10 });
-    expect(loadConfig({}).databaseFile).toBe('db/matchloom.sqlite3');
+    expect(c).toMatchObject({
+      port: 3000,
+      host: '0.0.0.0',
+      seedDemo: true,
+      nodeEnv: 'development',
+      logLevel: 'info',
+      bcryptCost: 10,
+    });
+    expect(loadConfig({ JWT_SECRET: 'y'.repeat(32) }).databaseFile).toBe('db/matchloom.sqlite3');
   });
 
   it('reads every variable', () => {
@@ -80,6 +87,8 @@ describe('loadConfig', () => {
     const second = loadConfig(base).jwtSecret;
     expect(first.byteLength).toBeGreaterThanOrEqual(32);
     expect(Buffer.from(second).equals(Buffer.from(first))).toBe(true);
-    expect(readFileSync(join(dir, 'db', '.matchloom-jwt-secret'), 'utf8').trim()).toBe(new TextDecoder().decode(first));
+    expect(readFileSync(join(dir, 'db', 'm.sqlite3.jwt-secret'), 'utf8').trim()).toBe(
+      new TextDecoder().decode(first),
+    );
   });
 });

@@ -31,11 +31,22 @@ const editors = (ok: number) => ({ owner: ok, tuner: ok, observer: 403, stranger
 
 const CASES: Case[] = [
   { name: 'GET room', method: 'get', path: (f) => `/api/rooms/${f.roomId}`, expected: any(200) },
-  { name: 'PATCH room', method: 'patch', path: (f) => `/api/rooms/${f.roomId}`, body: { name: 'Renamed' }, expected: ownerOnly(200) },
+  {
+    name: 'PATCH room',
+    method: 'patch',
+    path: (f) => `/api/rooms/${f.roomId}`,
+    body: { name: 'Renamed' },
+    expected: ownerOnly(200),
+  },
   { name: 'DELETE room', method: 'delete', path: (f) => `/api/rooms/${f.roomId}`, expected: ownerOnly(204) },
   { name: 'GET design', method: 'get', path: (f) => `/api/rooms/${f.roomId}/design`, expected: any(200) },
   { name: 'GET members', method: 'get', path: (f) => `/api/rooms/${f.roomId}/members`, expected: any(200) },
-  { name: 'GET invitations', method: 'get', path: (f) => `/api/rooms/${f.roomId}/invitations`, expected: ownerOnly(200) },
+  {
+    name: 'GET invitations',
+    method: 'get',
+    path: (f) => `/api/rooms/${f.roomId}/invitations`,
+    expected: ownerOnly(200),
+  },
   {
     name: 'POST member',
     method: 'post',
@@ -43,14 +54,53 @@ const CASES: Case[] = [
     body: { email: 'NEWCOMER', role: 'tuner' },
     expected: ownerOnly(201),
   },
-  { name: 'POST invitation', method: 'post', path: (f) => `/api/rooms/${f.roomId}/members`, body: { email: 'nobody@example.test', role: 'observer' }, expected: ownerOnly(202) },
-  { name: 'PATCH member', method: 'patch', path: (f) => `/api/rooms/${f.roomId}/members/${f.observerId}`, body: { role: 'tuner' }, expected: ownerOnly(200) },
-  { name: 'DELETE other member', method: 'delete', path: (f) => `/api/rooms/${f.roomId}/members/${f.extraId}`, expected: ownerOnly(204) },
-  { name: 'POST collab-token', method: 'post', path: (f) => `/api/rooms/${f.roomId}/collab-token`, expected: any(200) },
-  { name: 'POST snapshot', method: 'post', path: (f) => `/api/rooms/${f.roomId}/snapshots`, body: { label: 'by role' }, expected: editors(201) },
-  { name: 'GET snapshots', method: 'get', path: (f) => `/api/rooms/${f.roomId}/snapshots`, expected: any(200) },
+  {
+    name: 'POST invitation',
+    method: 'post',
+    path: (f) => `/api/rooms/${f.roomId}/members`,
+    body: { email: 'nobody@example.test', role: 'observer' },
+    expected: ownerOnly(202),
+  },
+  {
+    name: 'PATCH member',
+    method: 'patch',
+    path: (f) => `/api/rooms/${f.roomId}/members/${f.observerId}`,
+    body: { role: 'tuner' },
+    expected: ownerOnly(200),
+  },
+  {
+    name: 'DELETE other member',
+    method: 'delete',
+    path: (f) => `/api/rooms/${f.roomId}/members/${f.extraId}`,
+    expected: ownerOnly(204),
+  },
+  {
+    name: 'POST collab-token',
+    method: 'post',
+    path: (f) => `/api/rooms/${f.roomId}/collab-token`,
+    expected: any(200),
+  },
+  {
+    name: 'POST snapshot',
+    method: 'post',
+    path: (f) => `/api/rooms/${f.roomId}/snapshots`,
+    body: { label: 'by role' },
+    expected: editors(201),
+  },
+  {
+    name: 'GET snapshots',
+    method: 'get',
+    path: (f) => `/api/rooms/${f.roomId}/snapshots`,
+    expected: any(200),
+  },
   { name: 'GET snapshot', method: 'get', path: (f) => `/api/snapshots/${f.snapshotId}`, expected: any(200) },
-  { name: 'POST branch', method: 'post', path: (f) => `/api/snapshots/${f.snapshotId}/branch`, body: { name: 'Branch' }, expected: editors(201) },
+  {
+    name: 'POST branch',
+    method: 'post',
+    path: (f) => `/api/snapshots/${f.snapshotId}/branch`,
+    body: { name: 'Branch' },
+    expected: editors(201),
+  },
 ];
 
 let server: TestServer;
@@ -75,9 +125,14 @@ afterAll(async () => {
 async function fixture(): Promise<Fixture> {
   const owner = agents.owner;
   const roomId = (await owner.post('/api/rooms').send({ name: 'Matrix room' }).expect(201)).body.id;
-  for (const [who, role] of [['tuner', 'tuner'], ['observer', 'observer'], ['extra', 'observer']] as const)
+  for (const [who, role] of [
+    ['tuner', 'tuner'],
+    ['observer', 'observer'],
+    ['extra', 'observer'],
+  ] as const)
     await owner.post(`/api/rooms/${roomId}/members`).send({ email: ids[who].email, role }).expect(201);
-  const snapshotId = (await owner.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'base' }).expect(201)).body.id;
+  const snapshotId = (await owner.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'base' }).expect(201))
+    .body.id;
   return { roomId, snapshotId, observerId: ids.observer.id, extraId: ids.extra.id };
 }
 
@@ -87,12 +142,15 @@ describe('role matrix', () => {
   it.each(rows)('$name as $actor -> $status', async ({ method, path, body, actor, status }) => {
     const f = (current ??= await fixture());
     if (method !== 'get' && status < 300) current = null;
-    const payload = body && 'email' in body && body.email === 'NEWCOMER' ? { ...body, email: newcomerEmail } : body;
+    const payload =
+      body && 'email' in body && body.email === 'NEWCOMER' ? { ...body, email: newcomerEmail } : body;
     const req = agents[actor][method](path(f));
     const res = await (payload ? req.send(payload) : req);
     expect(res.status, JSON.stringify(res.body)).toBe(status);
     if (status >= 400) {
-      expect(res.body.error.code).toBe({ 401: 'unauthenticated', 403: 'forbidden', 404: 'not-found' }[status]);
+      expect(res.body.error.code).toBe(
+        { 401: 'unauthenticated', 403: 'forbidden', 404: 'not-found' }[status],
+      );
       expect(JSON.stringify(res.body)).not.toContain('Matrix room');
     }
   });

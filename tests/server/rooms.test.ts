@@ -20,22 +20,44 @@ afterAll(async () => {
 describe('POST /api/rooms', () => {
   it('creates a room with the default design; the creator is its owner', async () => {
     const res = await owner.agent.post('/api/rooms').send({ name: '  Bench board  ' }).expect(201);
-    expect(res.body).toMatchObject({ id: expect.stringMatching(/^[A-Za-z0-9_-]{22,}$/), name: 'Bench board', role: 'owner', parent: null });
-    expect(res.body.members).toEqual([expect.objectContaining({ userId: owner.user.id, role: 'owner', displayName: 'Room Owner' })]);
+    expect(res.body).toMatchObject({
+      id: expect.stringMatching(/^[A-Za-z0-9_-]{22,}$/),
+      name: 'Bench board',
+      role: 'owner',
+      parent: null,
+    });
+    expect(res.body.members).toEqual([
+      expect.objectContaining({ userId: owner.user.id, role: 'owner', displayName: 'Room Owner' }),
+    ]);
     const design = await owner.agent.get(`/api/rooms/${res.body.id}/design`).expect(200);
     expect(design.body).toEqual(parseDesign(defaultDesign('Bench board')));
-    expect(design.body).toMatchObject({ referenceOhms: 50, elements: [], band: { startHz: 2.4e9, stopHz: 2.4835e9 } });
+    expect(design.body).toMatchObject({
+      referenceOhms: 50,
+      elements: [],
+      band: { startHz: 2.4e9, stopHz: 2.4835e9 },
+    });
   });
 
   it('keeps a given design exactly', async () => {
-    const res = await owner.agent.post('/api/rooms').send({ name: 'Chip antenna', design: chipAntennaDesign() }).expect(201);
+    const res = await owner.agent
+      .post('/api/rooms')
+      .send({ name: 'Chip antenna', design: chipAntennaDesign() })
+      .expect(201);
     const design = await owner.agent.get(`/api/rooms/${res.body.id}/design`).expect(200);
     expect(design.body).toEqual(parseDesign(chipAntennaDesign()));
   });
 
   it('gives every room its own unguessable id', async () => {
     const ids = new Set<string>();
-    for (let i = 0; i < 5; i++) ids.add((await owner.agent.post('/api/rooms').send({ name: `r${i}` }).expect(201)).body.id);
+    for (let i = 0; i < 5; i++)
+      ids.add(
+        (
+          await owner.agent
+            .post('/api/rooms')
+            .send({ name: `r${i}` })
+            .expect(201)
+        ).body.id,
+      );
     expect(ids.size).toBe(5);
     for (const id of ids) expect(Buffer.from(id, 'base64url').byteLength).toBeGreaterThanOrEqual(16);
   });
@@ -77,7 +99,14 @@ describe('GET /api/rooms', () => {
     await b.agent.post('/api/rooms').send({ name: 'Theirs' }).expect(201);
     const list = (await a.agent.get('/api/rooms').expect(200)).body;
     expect(list).toEqual([
-      { id: mine.id, name: 'Mine', role: 'owner', createdAt: expect.any(Number), updatedAt: expect.any(Number), parent: null },
+      {
+        id: mine.id,
+        name: 'Mine',
+        role: 'owner',
+        createdAt: expect.any(Number),
+        updatedAt: expect.any(Number),
+        parent: null,
+      },
     ]);
     expect(list[0].updatedAt).toBeGreaterThanOrEqual(list[0].createdAt);
   });
@@ -106,12 +135,16 @@ describe('one room', () => {
       ['patch', ''],
       ['delete', ''],
     ] as const) {
-      const res = await stranger.agent[method](`/api/rooms/${room.id}${path}`).send({ name: 'x' }).expect(404);
+      const res = await stranger.agent[method](`/api/rooms/${room.id}${path}`)
+        .send({ name: 'x' })
+        .expect(404);
       expect(res.body.error.code).toBe('not-found');
       expect(JSON.stringify(res.body)).not.toContain('Secret project');
     }
     // A room that does not exist, or a malformed id, looks the same.
-    expect((await owner.agent.get('/api/rooms/AAAAAAAAAAAAAAAAAAAAAA').expect(404)).body.error.code).toBe('not-found');
+    expect((await owner.agent.get('/api/rooms/AAAAAAAAAAAAAAAAAAAAAA').expect(404)).body.error.code).toBe(
+      'not-found',
+    );
     expect((await owner.agent.get('/api/rooms/%20bad%20id').expect(404)).body.error.code).toBe('not-found');
   });
 
@@ -136,9 +169,18 @@ describe('one room', () => {
   it('POST /collab-token gives a 60 s token naming the room and the caller role', async () => {
     const room = (await owner.agent.post('/api/rooms').send({ name: 'Tokens' }).expect(201)).body;
     const res = await owner.agent.post(`/api/rooms/${room.id}/collab-token`).expect(200);
-    expect(res.body).toMatchObject({ token: expect.any(String), roomId: room.id, role: 'owner', expiresInSeconds: 60 });
+    expect(res.body).toMatchObject({
+      token: expect.any(String),
+      roomId: room.id,
+      role: 'owner',
+      expiresInSeconds: 60,
+    });
     const tokens = createTokenService(server.config.jwtSecret);
-    expect(await tokens.verifyCollab(res.body.token)).toEqual({ userId: owner.user.id, roomId: room.id, role: 'owner' });
+    expect(await tokens.verifyCollab(res.body.token)).toEqual({
+      userId: owner.user.id,
+      roomId: room.id,
+      role: 'owner',
+    });
     const payload = JSON.parse(Buffer.from(res.body.token.split('.')[1], 'base64url').toString());
     expect(payload.exp - payload.iat).toBe(60);
     // Not a session.

@@ -1,6 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startServer } from '../../server/main';
-import { DEMO_PASSWORD, DEMO_USERS, CHIP_ANTENNA_ROOM, WHIP_ROOM, WHIP_BRANCH_ROOM, chipAntennaDesign } from '../../shared/demo/designs';
+import {
+  DEMO_PASSWORD,
+  DEMO_USERS,
+  CHIP_ANTENNA_ROOM,
+  WHIP_ROOM,
+  WHIP_BRANCH_ROOM,
+  chipAntennaDesign,
+} from '../../shared/demo/designs';
 import { parseDesign } from '../../shared/rf/design';
 import { signIn, startTestServer, type TestServer } from './helpers/test-server';
 
@@ -20,16 +27,25 @@ describe('demo seed', () => {
   it('every demo account signs in with the demo password and sees the three rooms with its role', async () => {
     for (const u of DEMO_USERS) {
       const agent = await signIn(server, u.email, DEMO_PASSWORD);
-      expect((await agent.get('/api/me').expect(200)).body).toMatchObject({ email: u.email, displayName: u.displayName });
+      expect((await agent.get('/api/me').expect(200)).body).toMatchObject({
+        email: u.email,
+        displayName: u.displayName,
+      });
       const rooms = (await agent.get('/api/rooms').expect(200)).body as { name: string; role: string }[];
-      expect(rooms.map((r) => r.name).sort()).toEqual([CHIP_ANTENNA_ROOM, WHIP_ROOM, WHIP_BRANCH_ROOM].sort());
+      expect(rooms.map((r) => r.name).sort()).toEqual(
+        [CHIP_ANTENNA_ROOM, WHIP_ROOM, WHIP_BRANCH_ROOM].sort(),
+      );
       for (const r of rooms) expect(r.role).toBe(u.role);
     }
   });
 
   it('holds the chip antenna room (no elements, goal not met), the whip room with two snapshots and its branch', async () => {
     const agent = await signIn(server, 'tuner@demo.test', DEMO_PASSWORD);
-    const rooms = (await agent.get('/api/rooms')).body as { id: string; name: string; parent: { snapshotLabel: string; roomName: string } | null }[];
+    const rooms = (await agent.get('/api/rooms')).body as {
+      id: string;
+      name: string;
+      parent: { snapshotLabel: string; roomName: string } | null;
+    }[];
     const chip = rooms.find((r) => r.name === CHIP_ANTENNA_ROOM)!;
     const design = (await agent.get(`/api/rooms/${chip.id}/design`).expect(200)).body;
     expect(design).toEqual(parseDesign(chipAntennaDesign()));
@@ -45,7 +61,10 @@ describe('demo seed', () => {
     });
 
     const whip = rooms.find((r) => r.name === WHIP_ROOM)!;
-    const snaps = (await agent.get(`/api/rooms/${whip.id}/snapshots`).expect(200)).body as { label: string; figures: { goalMet: boolean } }[];
+    const snaps = (await agent.get(`/api/rooms/${whip.id}/snapshots`).expect(200)).body as {
+      label: string;
+      figures: { goalMet: boolean };
+    }[];
     expect(snaps.map((s) => s.label)).toEqual(['E12 values', 'first cut']);
     for (const s of snaps) expect(s.figures.goalMet).toBe(true);
 
@@ -55,11 +74,21 @@ describe('demo seed', () => {
 
   it('a second start on the same database does not duplicate anything', async () => {
     const count = async (t: string) => Number((await server.knex(t).count({ n: '*' }).first())!.n);
-    const before = { users: await count('users'), rooms: await count('rooms'), snapshots: await count('snapshots'), members: await count('room_members') };
+    const before = {
+      users: await count('users'),
+      rooms: await count('rooms'),
+      snapshots: await count('snapshots'),
+      members: await count('room_members'),
+    };
     expect(before).toEqual({ users: 3, rooms: 3, snapshots: 2, members: 9 });
     const again = await startServer({ ...server.config }, { clientDir: null });
     try {
-      const after = { users: await count('users'), rooms: await count('rooms'), snapshots: await count('snapshots'), members: await count('room_members') };
+      const after = {
+        users: await count('users'),
+        rooms: await count('rooms'),
+        snapshots: await count('snapshots'),
+        members: await count('room_members'),
+      };
       expect(after).toEqual(before);
     } finally {
       await again.close();

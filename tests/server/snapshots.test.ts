@@ -21,7 +21,10 @@ afterAll(async () => {
 
 async function newRoom(design: object = whipE12Design()): Promise<string> {
   const id = (await owner.agent.post('/api/rooms').send({ name: 'Whip', design }).expect(201)).body.id;
-  await owner.agent.post(`/api/rooms/${id}/members`).send({ email: tuner.user.email, role: 'tuner' }).expect(201);
+  await owner.agent
+    .post(`/api/rooms/${id}/members`)
+    .send({ email: tuner.user.email, role: 'tuner' })
+    .expect(201);
   return id;
 }
 
@@ -37,7 +40,10 @@ async function editRoom(roomId: string, edit: (doc: Y.Doc) => void): Promise<voi
 describe('POST /api/rooms/:id/snapshots', () => {
   it('stores the current document and design with figures from the engine', async () => {
     const roomId = await newRoom();
-    const res = await tuner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: '  E12 values ' }).expect(201);
+    const res = await tuner.agent
+      .post(`/api/rooms/${roomId}/snapshots`)
+      .send({ label: '  E12 values ' })
+      .expect(201);
     expect(res.body).toMatchObject({
       id: expect.any(String),
       roomId,
@@ -60,7 +66,9 @@ describe('POST /api/rooms/:id/snapshots', () => {
   it('captures edits made through the room socket', async () => {
     const roomId = await newRoom(chipAntennaDesign());
     await editRoom(roomId, (doc) => insertElement(doc, { id: 'l1', kind: 'series-l', value: 2.2e-9 }));
-    const snap = (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'one part' }).expect(201)).body;
+    const snap = (
+      await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'one part' }).expect(201)
+    ).body;
     expect(snap.figures.partCount).toBe(1);
     const full = (await owner.agent.get(`/api/snapshots/${snap.id}`).expect(200)).body;
     expect(full.design.elements).toEqual([{ id: 'l1', kind: 'series-l', value: 2.2e-9 }]);
@@ -71,9 +79,14 @@ describe('POST /api/rooms/:id/snapshots', () => {
   it('a document holding an invalid design cannot be snapshot (409 naming the path), and its design is 409 too', async () => {
     const roomId = await newRoom();
     await editRoom(roomId, (doc) => setDesignField(doc, 'referenceOhms', -5));
-    const res = await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'broken' }).expect(409);
+    const res = await owner.agent
+      .post(`/api/rooms/${roomId}/snapshots`)
+      .send({ label: 'broken' })
+      .expect(409);
     expect(res.body.error).toMatchObject({ code: 'invalid-design', path: 'referenceOhms' });
-    expect((await owner.agent.get(`/api/rooms/${roomId}/design`).expect(409)).body.error.path).toBe('referenceOhms');
+    expect((await owner.agent.get(`/api/rooms/${roomId}/design`).expect(409)).body.error.path).toBe(
+      'referenceOhms',
+    );
   });
 
   it.each([
@@ -84,14 +97,17 @@ describe('POST /api/rooms/:id/snapshots', () => {
     [{ label: 'ok', forReview: 'yes' }, 'forReview: must be true or false'],
   ])('answers 400 for %o', async (body, message) => {
     const roomId = await newRoom();
-    expect((await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send(body).expect(400)).body.error.message).toBe(message);
+    expect(
+      (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send(body).expect(400)).body.error.message,
+    ).toBe(message);
   });
 });
 
 describe('GET /api/rooms/:id/snapshots', () => {
   it('lists newest first', async () => {
     const roomId = await newRoom();
-    for (const label of ['one', 'two', 'three']) await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label }).expect(201);
+    for (const label of ['one', 'two', 'three'])
+      await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label }).expect(201);
     const list = (await tuner.agent.get(`/api/rooms/${roomId}/snapshots`).expect(200)).body;
     expect(list.map((s: { label: string }) => s.label)).toEqual(['three', 'two', 'one']);
   });
@@ -100,17 +116,24 @@ describe('GET /api/rooms/:id/snapshots', () => {
 describe('POST /api/snapshots/:id/branch', () => {
   it('starts a new room from the snapshot, owned by the caller, with its lineage', async () => {
     const roomId = await newRoom();
-    const snap = (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'E12 values' }).expect(201)).body;
+    const snap = (
+      await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'E12 values' }).expect(201)
+    ).body;
     // Later edits to the parent do not reach the branch.
     await editRoom(roomId, (doc) => setDesignField(doc, 'goal', { maxVswr: 1.5 }));
-    const res = await tuner.agent.post(`/api/snapshots/${snap.id}/branch`).send({ name: 'Low-cost branch' }).expect(201);
+    const res = await tuner.agent
+      .post(`/api/snapshots/${snap.id}/branch`)
+      .send({ name: 'Low-cost branch' })
+      .expect(201);
     expect(res.body.roomId).toEqual(expect.any(String));
     expect(res.body.room).toMatchObject({
       name: 'Low-cost branch',
       role: 'owner',
       parent: { snapshotId: snap.id, snapshotLabel: 'E12 values', roomId, roomName: 'Whip' },
     });
-    expect(res.body.room.members).toEqual([expect.objectContaining({ userId: tuner.user.id, role: 'owner' })]);
+    expect(res.body.room.members).toEqual([
+      expect.objectContaining({ userId: tuner.user.id, role: 'owner' }),
+    ]);
     const design = (await tuner.agent.get(`/api/rooms/${res.body.roomId}/design`).expect(200)).body;
     expect(design).toEqual({ ...parseDesign(whipE12Design()), name: 'Low-cost branch' });
     const row = await server.knex('rooms').where({ id: res.body.roomId }).first();
@@ -124,10 +147,16 @@ describe('POST /api/snapshots/:id/branch', () => {
 
   it('hides the parent room from a branch member who is not in it', async () => {
     const roomId = await newRoom();
-    const snap = (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 's' }).expect(201)).body;
-    const branchId = (await owner.agent.post(`/api/snapshots/${snap.id}/branch`).send({ name: 'B' }).expect(201)).body.roomId;
+    const snap = (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 's' }).expect(201))
+      .body;
+    const branchId = (
+      await owner.agent.post(`/api/snapshots/${snap.id}/branch`).send({ name: 'B' }).expect(201)
+    ).body.roomId;
     const outsider = await signUp(server);
-    await owner.agent.post(`/api/rooms/${branchId}/members`).send({ email: outsider.user.email, role: 'observer' }).expect(201);
+    await owner.agent
+      .post(`/api/rooms/${branchId}/members`)
+      .send({ email: outsider.user.email, role: 'observer' })
+      .expect(201);
     const details = (await outsider.agent.get(`/api/rooms/${branchId}`).expect(200)).body;
     expect(details.parent).toEqual({ snapshotId: snap.id, snapshotLabel: 's', roomId: null, roomName: null });
   });
@@ -135,7 +164,10 @@ describe('POST /api/snapshots/:id/branch', () => {
   it('is 404 for an unknown snapshot and 400 for a bad name', async () => {
     await owner.agent.post('/api/snapshots/AAAAAAAAAAAAAAAAAAAAAA/branch').send({ name: 'x' }).expect(404);
     const roomId = await newRoom();
-    const snap = (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 's' }).expect(201)).body;
-    expect((await owner.agent.post(`/api/snapshots/${snap.id}/branch`).send({}).expect(400)).body.error.message).toBe('name: is required');
+    const snap = (await owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 's' }).expect(201))
+      .body;
+    expect(
+      (await owner.agent.post(`/api/snapshots/${snap.id}/branch`).send({}).expect(400)).body.error.message,
+    ).toBe('name: is required');
   });
 });

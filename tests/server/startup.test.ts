@@ -24,7 +24,10 @@ const logStream = new Writable({
 
 let server: TestServer;
 beforeAll(async () => {
-  server = await startTestServer({ logLevel: 'debug' }, { clientDir, logger: createLogger({ logLevel: 'debug', nodeEnv: 'test' }, logStream) });
+  server = await startTestServer(
+    { logLevel: 'debug' },
+    { clientDir, logger: createLogger({ logLevel: 'debug', nodeEnv: 'test' }, logStream) },
+  );
 });
 afterAll(async () => {
   await server.close();
@@ -48,7 +51,10 @@ describe('start-up', () => {
 
   it('creates the database folder', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'matchloom-nested-'));
-    const s = await startServer({ ...server.config, logLevel: 'silent', databaseFile: join(dir, 'a', 'b', 'm.sqlite3') }, { clientDir: null });
+    const s = await startServer(
+      { ...server.config, logLevel: 'silent', databaseFile: join(dir, 'a', 'b', 'm.sqlite3') },
+      { clientDir: null },
+    );
     try {
       await supertest(s.url).get('/api/health').expect(200);
     } finally {
@@ -58,7 +64,9 @@ describe('start-up', () => {
   });
 
   it('reports a port in use and leaves nothing open', async () => {
-    await expect(startServer({ ...server.config, logLevel: 'silent', port: server.port }, { clientDir: null })).rejects.toMatchObject({ code: 'EADDRINUSE' });
+    await expect(
+      startServer({ ...server.config, logLevel: 'silent', port: server.port }, { clientDir: null }),
+    ).rejects.toMatchObject({ code: 'EADDRINUSE' });
   });
 
   it('close() stops listening and closes the database', async () => {
@@ -86,7 +94,9 @@ describe('the built client', () => {
       const res = await supertest(server.url).get(path);
       expect(res.headers['content-type'] ?? '').not.toMatch(/text\/html/);
     }
-    expect((await supertest(server.url).get('/api/no-such-route').expect(404)).body.error.code).toBe('not-found');
+    expect((await supertest(server.url).get('/api/no-such-route').expect(404)).body.error.code).toBe(
+      'not-found',
+    );
   });
 
   it('sends security headers', async () => {
@@ -101,8 +111,13 @@ describe('logs', () => {
   it('record requests without passwords, cookies or tokens', async () => {
     const agent = server.agent();
     const email = uniqueEmail('logged');
-    const res = await agent.post('/api/auth/signup').send({ email, password: TEST_PASSWORD, displayName: 'Logged' }).expect(201);
-    const token = String(res.headers['set-cookie']).split(';')[0].slice(SESSION_COOKIE.length + 1);
+    const res = await agent
+      .post('/api/auth/signup')
+      .send({ email, password: TEST_PASSWORD, displayName: 'Logged' })
+      .expect(201);
+    const token = String(res.headers['set-cookie'])
+      .split(';')[0]
+      .slice(SESSION_COOKIE.length + 1);
     await agent.get('/api/me').expect(200);
     await agent.post('/api/auth/signin').send({ email, password: 'wrong password here' }).expect(401);
     const text = logLines.join('');

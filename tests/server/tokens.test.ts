@@ -1,6 +1,11 @@
 import { SignJWT } from 'jose';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { COLLAB_AUDIENCE, SESSION_AUDIENCE, TOKEN_ISSUER, createTokenService } from '../../server/auth/tokens';
+import {
+  COLLAB_AUDIENCE,
+  SESSION_AUDIENCE,
+  TOKEN_ISSUER,
+  createTokenService,
+} from '../../server/auth/tokens';
 
 const secret = new TextEncoder().encode('a-test-secret-of-enough-length-0123456789');
 const tokens = createTokenService(secret);
@@ -28,7 +33,11 @@ describe('session tokens', () => {
     const token = await tokens.signSession('user-1');
     const [h, p, s] = token.split('.');
     const payload = JSON.parse(Buffer.from(p, 'base64url').toString());
-    const forged = [h, Buffer.from(JSON.stringify({ ...payload, sub: 'user-2' })).toString('base64url'), s].join('.');
+    const forged = [
+      h,
+      Buffer.from(JSON.stringify({ ...payload, sub: 'user-2' })).toString('base64url'),
+      s,
+    ].join('.');
     expect(await tokens.verifySession(forged)).toBeNull();
     const other = createTokenService(new TextEncoder().encode('another-secret-of-enough-length-987654321'));
     expect(await other.verifySession(token)).toBeNull();
@@ -38,7 +47,9 @@ describe('session tokens', () => {
 
   it('refuse an unsigned ("alg": "none") token', async () => {
     const header = Buffer.from(JSON.stringify({ alg: 'none' })).toString('base64url');
-    const body = Buffer.from(JSON.stringify({ sub: 'user-1', iss: TOKEN_ISSUER, aud: SESSION_AUDIENCE, exp: 9e9 })).toString('base64url');
+    const body = Buffer.from(
+      JSON.stringify({ sub: 'user-1', iss: TOKEN_ISSUER, aud: SESSION_AUDIENCE, exp: 9e9 }),
+    ).toString('base64url');
     expect(await tokens.verifySession(`${header}.${body}.`)).toBeNull();
   });
 });
@@ -58,7 +69,11 @@ describe('collab tokens', () => {
     const [h, p, s] = token.split('.');
     const payload = JSON.parse(Buffer.from(p, 'base64url').toString());
     for (const change of [{ room: 'room-b' }, { role: 'owner' }]) {
-      const forged = [h, Buffer.from(JSON.stringify({ ...payload, ...change })).toString('base64url'), s].join('.');
+      const forged = [
+        h,
+        Buffer.from(JSON.stringify({ ...payload, ...change })).toString('base64url'),
+        s,
+      ].join('.');
       expect(await tokens.verifyCollab(forged)).toBeNull();
     }
   });

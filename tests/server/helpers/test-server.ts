@@ -23,10 +23,18 @@ export interface TestServer extends RunningServer {
   agent(): TestAgent;
 }
 
-export async function startTestServer(overrides: Partial<Config> = {}, options: StartOptions = {}): Promise<TestServer> {
+export async function startTestServer(
+  overrides: Partial<Config> = {},
+  options: StartOptions = {},
+): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'matchloom-test-'));
   const config: Config = {
-    ...loadConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_FILE: join(dir, 'matchloom.sqlite3'), BCRYPT_COST: '4' }),
+    ...loadConfig({
+      NODE_ENV: 'test',
+      LOG_LEVEL: 'silent',
+      DATABASE_FILE: join(dir, 'matchloom.sqlite3'),
+      BCRYPT_COST: '4',
+    }),
     port: 0,
     host: '127.0.0.1',
     seedDemo: false,
@@ -63,13 +71,21 @@ export async function signUp(
   const password = input.password ?? TEST_PASSWORD;
   const res = await agent
     .post('/api/auth/signup')
-    .send({ email: input.email ?? uniqueEmail(), password, displayName: input.displayName ?? 'Test Engineer' })
+    .send({
+      email: input.email ?? uniqueEmail(),
+      password,
+      displayName: input.displayName ?? 'Test Engineer',
+    })
     .expect(201);
   return { agent, user: res.body, password };
 }
 
 /** A signed-in agent for an existing account. */
-export async function signIn(server: Pick<TestServer, 'agent'>, email: string, password: string): Promise<TestAgent> {
+export async function signIn(
+  server: Pick<TestServer, 'agent'>,
+  email: string,
+  password: string,
+): Promise<TestAgent> {
   const agent = server.agent();
   await agent.post('/api/auth/signin').send({ email, password }).expect(200);
   return agent;
