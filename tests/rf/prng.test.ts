@@ -16,14 +16,17 @@ describe('prng (mulberry32)', () => {
     const p = prngFrom(12345);
     const n = 200_000;
     const bins = new Array(20).fill(0);
-    let s = 0, s2 = 0;
+    let s = 0, s2 = 0, lo = Infinity, hi = -Infinity;
     for (let i = 0; i < n; i++) {
       const u = prngUniform(p);
-      expect(u >= 0 && u < 1).toBe(true);
+      lo = Math.min(lo, u);
+      hi = Math.max(hi, u);
       s += u;
       s2 += u * u;
       bins[Math.floor(u * 20)]++;
     }
+    expect(lo).toBeGreaterThanOrEqual(0);
+    expect(hi).toBeLessThan(1);
     expect(s / n).toBeCloseTo(0.5, 2);
     expect(s2 / n - (s / n) ** 2).toBeCloseTo(1 / 12, 3);
     const e = n / 20;
