@@ -43,6 +43,24 @@ describe('findMatches', () => {
     expect(checked).toBeGreaterThan(3000);
   });
 
+  it('findMatches matches table and measured (Touchstone) loads at the centre, interpolated as the analysis core does (common practice)', () => {
+    // an invented series RLC, 8 Ω + 4 nH + 5 pF, sampled at 11 points
+    const freqs = Array.from({ length: 11 }, (_, i) => 0.8 * FC + (0.4 * FC * i) / 10);
+    const zOf = (f: number): [number, number] => [8, 2 * Math.PI * f * 4e-9 - 1 / (2 * Math.PI * f * 5e-12)];
+    const table = designOf({ kind: 'table', points: freqs.map((f) => [f, ...zOf(f)] as [number, number, number]) });
+    const lines = freqs.map((f) => {
+      const [r, x] = zOf(f);
+      const d = (r + 50) ** 2 + x * x;
+      return `${f} ${((r - 50) * (r + 50) + x * x) / d} ${(2 * x * 50) / d}`;
+    });
+    const measured = designOf({ kind: 'measured', touchstone: `! invented\n# Hz S RI R 50\n${lines.join('\n')}\n` });
+    for (const d of [table, measured]) {
+      const res = findMatches(d);
+      expect(res.candidates.length).toBeGreaterThan(6);
+      for (const c of res.candidates) expect(centerGammaOf(d, c.elements)).toBeLessThan(1e-9);
+    }
+  });
+
   it('findMatches offers all four L-sections when both conditions hold (20 + j60 Ω to 50 Ω; common practice)', () => {
     const res = findMatches(designOf({ kind: 'impedance', ohms: [20, 60] }));
     const ls = res.candidates.filter((c) => c.family === 'l-section');
