@@ -125,6 +125,17 @@ describe('client shell', () => {
     await form.getByRole('button', { name: 'Add member' }).click();
     await form.getByText('already a member').waitFor();
     await ownerSession.screenshot('04-members-owner');
+
+    // An address with no account is invited instead, and listed (to the owner) as pending.
+    const newcomer = newAccount('Noor Haddad').email;
+    await form.getByLabel('E-mail', { exact: true }).fill(newcomer);
+    await form.getByLabel('Role', { exact: true }).selectOption('tuner');
+    await form.getByRole('button', { name: 'Add member' }).click();
+    await page.getByRole('status').filter({ hasText: 'Invitation recorded' }).waitFor();
+    const pending = page.getByRole('list', { name: 'Invitations' }).getByRole('listitem').filter({ hasText: newcomer });
+    await pending.getByText('tuner', { exact: true }).waitFor();
+    expect(await form.getByText('already a member').count()).toBe(0);
+    await ownerSession.screenshot('04b-members-owner-invited');
     ownerSession.assertClean();
   });
 

@@ -85,7 +85,7 @@ describe('AddMemberForm', () => {
     await userEvent.type(screen.getByLabelText('E-mail'), 'new@example.test');
     await userEvent.click(screen.getByRole('button', { name: 'Add member' }));
     await waitFor(() => expect(notices.list().map((n) => n.title)).toEqual(['Invitation recorded']));
-    expect(notices.list()[0].message).toContain('they join as a tuner');
+    expect(notices.list()[0].message).toContain('an invitation to join as a tuner is kept');
     expect((screen.getByLabelText('E-mail') as HTMLInputElement).value).toBe('');
   });
 });

@@ -26,7 +26,7 @@ export function AddMemberForm({ roomId }: { roomId: string }) {
         notices.post({
           tone: 'info',
           title: 'Invitation recorded',
-          message: `No account uses ${result.invitation.email} yet; they join as ${roleWithArticle(result.invitation.role)} when they sign up with it.`,
+          message: `No account uses ${result.invitation.email} yet; an invitation to join as ${roleWithArticle(result.invitation.role)} is kept for that address.`,
         });
     },
     onError: (error) => setFormError(showServerErrors(error, ['email', 'role'], setError, { 'already-member': 'email' })),
