@@ -119,6 +119,33 @@ describe('POST /api/auth/signin', () => {
     expect(wrong.headers['set-cookie']).toBeUndefined();
   });
 
+  it('outside the test environment, brakes after 10 failures for one address (429), not for others', async () => {
+    const dev = await startTestServer({ nodeEnv: 'development' });
+    try {
+      const res = await dev
+        .agent()
+        .post('/api/auth/signup')
+        .send({ email: uniqueEmail(), password: TEST_PASSWORD, displayName: 'R' })
+        .expect(201);
+      const email = res.body.email as string;
+      for (let i = 0; i < 10; i++)
+        await dev.agent().post('/api/auth/signin').send({ email, password: 'wrong password!' }).expect(401);
+      const braked = await dev
+        .agent()
+        .post('/api/auth/signin')
+        .send({ email, password: TEST_PASSWORD })
+        .expect(429);
+      expect(braked.body.error.code).toBe('too-many-attempts');
+      await dev
+        .agent()
+        .post('/api/auth/signin')
+        .send({ email: uniqueEmail(), password: 'wrong password!' })
+        .expect(401);
+    } finally {
+      await dev.close();
+    }
+  });
+
   it('answers 400 for a missing field', async () => {
     const res = await server.agent().post('/api/auth/signin').send({ email: 'a@example.test' }).expect(400);
     expect(res.body.error.message).toBe('password: is required');
