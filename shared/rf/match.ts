@@ -115,8 +115,13 @@ interface Draft {
 
 /** |Γ| under which the centre counts as matched (a candidate must reach it too). */
 export const MATCHED_GAMMA = 1e-9;
-/** |Γ| (against Z0) above which a load counts as lying on the chart's edge. */
-const EDGE_GAMMA = 1 - 1e-9;
+/**
+ * Limits of an ordinary load: beyond them the load lies (for any practical purpose) on the chart's edge,
+ * the closed forms lose the digits a perfect match needs, and no real part would be precise enough:
+ * a load Q |X|/R above 10^7, or a magnitude beyond 10^±8 times Z0 (a short or an open).
+ */
+const EDGE_LOAD_Q = 1e7;
+const EDGE_RATIO = 1e8;
 
 function optionCheck(design: Design, options: MatchOptions): void {
   const keep = options.keep ?? 0;
@@ -136,13 +141,14 @@ export function edgeLoadExplanation(z: Complex, z0: number): string | null {
   const [r, x] = z;
   const mag = Math.hypot(r, x);
   if (r < 0) return 'The load has a negative resistance at the centre frequency (it is active): a passive matching network cannot match it.';
-  const gr = (r - z0) * (r + z0) + x * x;
-  const d = (r + z0) * (r + z0) + x * x;
-  const gamma = Math.hypot(gr, 2 * x * z0) / d;
-  if (!(gamma >= EDGE_GAMMA) && mag < IMPEDANCE_OPEN_OHMS * 0.999) return null;
-  if (mag <= 1e-9 * z0) return 'The load is a short circuit at the centre frequency: it absorbs no power, so no lossless network can match it.';
-  if (mag >= 1e12 * z0) return 'The load is an open circuit at the centre frequency: it absorbs no power, so no lossless network can match it.';
-  return `The load is a pure reactance (${x >= 0 ? '+' : '−'}j${Math.abs(x).toPrecision(4)} Ω) at the centre frequency: it absorbs no power, so no lossless network can match it; a resistor would only turn the reflected power into heat.`;
+  if (mag <= z0 / EDGE_RATIO) return 'The load is a short circuit at the centre frequency: it absorbs no power, so no lossless network can match it.';
+  if (mag >= z0 * EDGE_RATIO || mag >= IMPEDANCE_OPEN_OHMS * 0.999)
+    return 'The load is an open circuit at the centre frequency: it absorbs no power, so no lossless network can match it.';
+  if (r === 0)
+    return `The load is a pure reactance (${x >= 0 ? '+' : '−'}j${Math.abs(x).toPrecision(4)} Ω) at the centre frequency: it absorbs no power, so no lossless network can match it; a resistor would only turn the reflected power into heat.`;
+  if (Math.abs(x) / r > EDGE_LOAD_Q)
+    return `The load is almost a pure reactance at the centre frequency (${r.toPrecision(3)} ${x >= 0 ? '+' : '−'} j${Math.abs(x).toPrecision(4)} Ω, Q ≈ ${(Math.abs(x) / r).toPrecision(2)}): a match would need parts of a precision no real part has, so none is offered.`;
+  return null;
 }
 
 function stepsTitle(prefix: string, drafts: readonly ElementDraft[]): string {
@@ -361,5 +367,7 @@ export function findMatches(design: Design, options: MatchOptions = {}): MatchRe
   }
   candidates.sort((a, b) => a.worstInBand.gamma - b.worstInBand.gamma || a.elements.length - b.elements.length);
   const result: MatchResult = { ...base, candidates, notes };
-  return candidates.length ? result : { ...result, explanation: 'No closed-form network matched this load at the centre frequency.' };
+  return candidates.length
+    ? result
+    : { ...result, explanation: 'No closed-form network reached a perfect match at the centre frequency (see the notes): the load is too close to the chart’s edge for the values to be computed precisely.' };
 }
