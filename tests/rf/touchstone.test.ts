@@ -446,6 +446,58 @@ describe('parseTouchstone: pathological input', () => {
   });
 });
 
+describe('parseTouchstone: any input', () => {
+  it('either returns consistent data or throws a TouchstoneError, for lines built from Touchstone fragments (property, seeded)', () => {
+    const fragment = fc.constantFrom(
+      '# GHz S RI R 50', '# MHz S MA', '# Hz Z DB R 75', '# kHz Y RI', '# GHz S XY', '[Version] 2.0', '[Number of Ports] 1',
+      '[Number of Ports] 2', '[Two-Port Data Order] 12_21', '[Number of Frequencies] 2', '[Network Data]', '[Noise Data]',
+      '[End]', '[Reference] 50', '[Matrix Format] Lower', '! comment', '', '1 0.5 0', '2 0.5 90', '3 -3 45',
+      '1 0.1 0 0.9 0 0.9 0 0.1 0', '2 0.1 0 0.9 0 0.9 0 0.1 0', '1.5 1 0.5 20 0.3', '0 0', 'x', 'NaN', '1e400 0 0', '-1 0 0',
+    );
+    fc.assert(
+      fc.property(fc.array(fragment, { maxLength: 14 }), fc.constantFrom(undefined, 1, 2), (lines, ports) => {
+        let d: TouchstoneData;
+        try {
+          d = parseTouchstone(lines.join('\n'), ports === undefined ? {} : { ports });
+        } catch (err) {
+          expect(err).toBeInstanceOf(TouchstoneError);
+          expect((err as TouchstoneError).message).toMatch(/^line \d+: \S/);
+          return;
+        }
+        expect([1, 2]).toContain(d.ports);
+        if (ports !== undefined) expect(d.ports).toBe(ports);
+        expect(d.frequenciesHz.length).toBeGreaterThan(0);
+        expect(d.s.length).toBe(d.frequenciesHz.length * 2 * d.ports * d.ports);
+        for (let i = 1; i < d.frequenciesHz.length; i++) expect(d.frequenciesHz[i]).toBeGreaterThan(d.frequenciesHz[i - 1]);
+        for (const v of d.s) expect(Number.isFinite(v)).toBe(true);
+        expect(d.referenceOhms).toBeGreaterThan(0);
+      }),
+      { seed: 11, numRuns: 3000 },
+    );
+  });
+
+  it('either returns data or throws a TouchstoneError for arbitrary text (property, seeded)', () => {
+    fc.assert(
+      fc.property(fc.string({ maxLength: 200, unit: fc.constantFrom('1', '2', '.', 'e', '-', ' ', '\n', '!', '#', '[', ']', 'R', 'S', 'G', 'H', 'z', '\t', '\r') }), (text) => {
+        try {
+          parseTouchstone(text);
+        } catch (err) {
+          expect(err).toBeInstanceOf(TouchstoneError);
+        }
+      }),
+      { seed: 12, numRuns: 3000 },
+    );
+  });
+
+  it('ignores a byte-order mark at the start', () => {
+    expect(Array.from(parseTouchstone('\ufeff# GHz S RI\n1 0.5 0\n').s)).toEqual([0.5, 0]);
+  });
+
+  it('ignores keywords it does not use', () => {
+    expect(parseTouchstone('[Version] 2.0\n# GHz S RI\n[Number of Ports] 1\n[Vendor Thing] 42\n[Network Data]\n1 0.5 0\n[End]\n').frequenciesHz.length).toBe(1);
+  });
+});
+
 describe('resampleTouchstone', () => {
   const data: TouchstoneData = {
     ports: 1,
