@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '../../shared/rf/index';
 import { parseDesign } from '../../shared/rf/design';
+import { refineDesign } from '../../shared/rf/refine';
 import {
   bodeFanoDecrement,
   ladderBestGamma,
@@ -83,5 +84,25 @@ describe('ladder limit', () => {
     expect(gauge.bodeFanoFractional).toBeCloseTo(limit.maxFractional, 9);
     expect(gauge.loadQ).toBeCloseTo(2 * Math.PI * 2.44e9 * 200 * 2e-12, 6);
     expect(ladderLimitFromBodeFano(limit.maxFractional, 1 / 3).rows[1].maxFractional).toBeCloseTo(gauge.rows[1].maxFractional, 9);
+  });
+
+  it('ladderBestGamma(order 2) is what refine reaches with a 4-part band-pass ladder on 200 Ω ∥ 2 pF over 20 % (numerical check, within 3 %)', () => {
+    const d = parseDesign({
+      format: 'matchloom-design',
+      version: 1,
+      load: { kind: 'rlc', topology: 'parallel', r: 200, c: 2e-12 },
+      band: { startHz: 2.2e9, stopHz: 2.7e9, centerHz: 2.44e9 },
+      sweep: { startHz: 1.8e9, stopHz: 3.1e9, points: 201 },
+      goal: { maxVswr: 2 },
+      elements: [
+        { id: 'L1', kind: 'series-l', value: 2e-9 },
+        { id: 'L2', kind: 'shunt-l', value: 0.4e-9 },
+        { id: 'L3', kind: 'series-l', value: 1e-9 },
+        { id: 'C1', kind: 'shunt-c', value: 1e-12 },
+      ],
+    });
+    const gauge = ladderBestGamma(2 * Math.PI * 2.44e9 * 200 * 2e-12, 0.5 / 2.44, 2);
+    const refined = refineDesign(d).worstInBand.gamma;
+    expect(Math.abs(refined / gauge - 1)).toBeLessThan(0.03);
   });
 });

@@ -144,6 +144,7 @@ describe('findMatches', () => {
       [{ kind: 'impedance', ohms: [0, 0] }, {}, /short circuit/],
       [{ kind: 'impedance', ohms: [0, 35] }, {}, /pure reactance/],
       [{ kind: 'rlc', topology: 'series', r: 0, l: 10e-9 }, {}, /pure reactance/],
+      [{ kind: 'impedance', ohms: [1e-7, 30] }, {}, /almost a pure reactance/],
       // a short seen through a quarter-wave line is an open
       [{ kind: 'impedance', ohms: [0, 0] }, { elements: [{ id: 'TL1', kind: 'line', z0: 50, length: { degrees: 90, atHz: FC } }] }, /open circuit/],
     ];
