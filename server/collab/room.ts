@@ -192,7 +192,7 @@ export class Room {
           conn.send(syncStep2Message(this.doc, msg.stateVector));
           return;
         case 'sync-step-2':
-        case 'update':
+        case 'update': {
           const decoded = decodeDocumentUpdate(msg.update);
           if (!conn.canWrite()) {
             // An observer's client answers the server's sync step 1 with its (usually empty) step 2:
@@ -204,6 +204,7 @@ export class Room {
           this.pending.push({ conn, update: msg.update, decoded });
           this.kick();
           return;
+        }
         case 'awareness':
           this.receiveAwareness(conn, msg.update);
           return;

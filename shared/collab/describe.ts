@@ -141,10 +141,11 @@ function complexOhms(v: unknown): string {
   return `${plain(re)}${im < 0 ? '−' : '+'}j${plain(Math.abs(im))} Ω`;
 }
 
-/** "2.4–2.5 GHz", or "900 MHz–1.1 GHz" when the prefixes differ. */
+/** "433.1–434.8 MHz" (4 digits), or "900 MHz–1.1 GHz" when the prefixes differ. */
 export function frequencyRange(startHz: unknown, stopHz: unknown): string {
-  const a = withUnit(startHz, 'Hz');
-  const b = withUnit(stopHz, 'Hz');
+  // Four digits: band edges such as 433.05 MHz or 2.4835 GHz must not round into each other.
+  const a = formatEngineering(num(startHz), 'Hz', { digits: 4 });
+  const b = formatEngineering(num(stopHz), 'Hz', { digits: 4 });
   const [na, ua] = a.split(' ');
   const [nb, ub] = b.split(' ');
   return ua !== undefined && ua === ub ? `${na}–${nb} ${ua}` : `${a}–${b}`;

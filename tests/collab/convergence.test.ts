@@ -2,7 +2,7 @@
 // element exactly once, seeded random edit sequences from three clients converge, per-user undo, and the
 // design route reflects every accepted update.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import * as Y from 'yjs';
+import type * as Y from 'yjs';
 import {
   insertElement,
   moveElement,

@@ -76,7 +76,7 @@ describe('compaction and unloading', () => {
       await sleep(2);
     }
     const last = readElement(p.doc, 'l1')!.value;
-    await until('the last edit to be stored', async () => (await loadRoomDesign(w.knex, roomId)).elements[0].value === last);
+    await until('the last edit to be stored', async () => ((await loadRoomDesign(w.knex, roomId)).elements[0] as { value?: number }).value === last);
     const state = await w.knex('room_states').where({ room_id: roomId }).first('upto_id');
     expect(Number(state.upto_id)).toBeGreaterThan(0);
     expect(await rowCount(roomId)).toBeLessThan(10);
@@ -101,7 +101,7 @@ describe('compaction and unloading', () => {
     await c.synced;
     expect(readDesign(c.doc)).toEqual(design);
     setElementField(c.doc, 'c7', 'value', 5.6e-12);
-    await until('the edit after reload to be stored', async () => (await loadRoomDesign(w.knex, roomId)).elements[0].value === 5.6e-12);
+    await until('the edit after reload to be stored', async () => ((await loadRoomDesign(w.knex, roomId)).elements[0] as { value?: number }).value === 5.6e-12);
     c.destroy();
   });
 

@@ -75,6 +75,7 @@ export class Api {
     return this.baseUrl.replace(/^http/, 'ws');
   }
 
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- JSON bodies, checked by each test
   async call(person: Person | null, method: string, path: string, body?: unknown): Promise<{ status: number; body: any }> {
     const res = await fetch(this.baseUrl + path, {
       method,
@@ -127,6 +128,7 @@ export class Api {
     return r.body.token as string;
   }
 
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the design file as JSON
   async design(person: Person, roomId: string): Promise<any> {
     const r = await this.call(person, 'GET', `/api/rooms/${roomId}/design`);
     if (r.status !== 200) throw new Error(`design failed: ${r.status} ${JSON.stringify(r.body)}`);
