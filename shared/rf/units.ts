@@ -163,7 +163,8 @@ export function parseEngineering(text: string, unit?: Unit): number {
       const found = splitUnit(suffix);
       if (!found) throw new UnitError(text, `"${text}": unknown unit "${suffix}"${unit !== undefined ? `; expected ${describe(unit)}` : ''}`);
       checkUnit(text, found.unit, unit);
-      exp = prefixExponent(text, found.rest, found.unit);
+      // Nobody in RF means millihertz: "433 mhz" and "433 mHz" are read as megahertz.
+      exp = found.unit === 'Hz' && found.rest === 'm' ? 6 : prefixExponent(text, found.rest, found.unit);
     }
   }
   return finiteOrThrow(text, scale(num[0], exp));
@@ -216,7 +217,8 @@ export function formatEngineering(value: number, unit: Unit = '', opts: { digits
     else break;
   }
   const entry = FORMAT_PREFIXES.find(([e]) => e === exp3);
-  if (!entry) {
+  // Sub-hertz values get no prefix: "m" before Hz is read as mega (see parseEngineering).
+  if (!entry || (unit === 'Hz' && exp3 < 0)) {
     // Beyond the prefixes: plain exponent notation, still with the unit.
     const [m, e] = value.toExponential(digits - 1).split('e');
     return join(`${trimmed(Number(m), digits)}e${Number(e)}`, '');

@@ -29,6 +29,8 @@ describe('parseEngineering', () => {
     ['2.45G', 'Hz', 2.45e9],
     ['433.92 MHz', 'Hz', 433.92e6],
     ['2400 MHZ', 'Hz', 2.4e9],
+    ['433 mhz', 'Hz', 433e6], // common practice: "m" before Hz always means mega in RF entry
+    ['2.4 mHz', 'Hz', 2.4e6],
     ['1 THz', 'Hz', 1e12],
     ['1.2k', undefined, 1200],
     ['1.2 kΩ', 'Ω', 1200],
