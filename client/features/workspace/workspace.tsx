@@ -1,7 +1,52 @@
 /**
- * The room workspace: the screen RF engineers live in during a call. The room route renders it
- * lazily with the room id and the signed-in user's role in that room.
+ * The room workspace: the screen RF engineers live in during a call. The Smith chart and the
+ * sweep plot on top, the chain canvas below them, and a side panel with the selected element, the
+ * load, band and port, the figures, the match finder, refine and the yield run, and who is in the
+ * room. Everything is derived from the room's shared document, so every collaborator's edit shows
+ * at once; an observer sees it all live with no editing control.
  */
+import { useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { presenceColour } from '../../../shared/collab/presence';
+import type { ViewState } from '../../../shared/collab/events';
+import type { ElementKind } from '../../../shared/rf/design';
+import type { ESeries } from '../../../shared/rf/eseries';
+import { paths } from '../../config/paths';
+import { useMe } from '../auth/api/get-me';
+import { getEngineClient } from './analysis/engine-client';
+import { useAnalysis } from './analysis/use-analysis';
+import { ChainCanvas } from './chain/chain-canvas';
+import { CANVAS_HEIGHT } from './chain/chain-layout';
+import { elementName } from './chain/element-catalog';
+import { elementDescription } from './chain/element-summary';
+import { ElementPalette, StepSeriesSelect } from './chain/element-palette';
+import { SmithChart, type ChartCursor } from './chart/smith-chart';
+import { DEFAULT_VIEW, type ChartView } from './chart/geometry';
+import type { PresenceUser } from './collab/presence-state';
+import { useDesignEdits } from './collab/use-design-edits';
+import { useLocalUndo } from './collab/use-local-undo';
+import { usePresence } from './collab/use-presence';
+import { useRoomDesign } from './collab/use-room-design';
+import { useRoomDoc } from './collab/use-room-doc';
+import { useRoomEvents } from './collab/use-room-events';
+import { FiguresPanel, FiguresSummary } from './figures/figures-panel';
+import { BandForm, PortForm } from './forms/band-form';
+import { LoadForm } from './forms/load-form';
+import { ElementInspector } from './inspector/element-inspector';
+import { smallButton } from './inspector/small-button';
+import { SideTabs } from './layout/side-tabs';
+import { SplitHandle } from './layout/split-handle';
+import { useElementSize } from './layout/use-element-size';
+import { useScreenHeight } from './layout/use-screen-frame';
+import { SweepPlot, type SweepPlotMode } from './plot/sweep-plot';
+import { PresenceAvatars, PresenceList } from './room/presence-list';
+import { presenceRows } from './room/presence-rows';
+import { RoomLog } from './room/room-log';
+import { MatchFinderPanel, type ChainPreview } from './tools/match-finder-panel';
+import { RefinePanel } from './tools/refine-panel';
+import { YieldPanel, type YieldEnvelope } from './tools/yield-panel';
+import { WorkspaceBanners } from './workspace-banners';
+
 export type RoomRole = 'owner' | 'tuner' | 'observer';
 
 export interface WorkspaceProps {
@@ -9,10 +54,484 @@ export interface WorkspaceProps {
   role: RoomRole;
 }
 
+type TabKey = 'element' | 'load' | 'band' | 'figures' | 'finder' | 'refine' | 'yield' | 'room';
+
+const PALETTE_HEIGHT = 34;
+
+/** Keys typed into a field keep their own undo; the room's undo is for everywhere else. */
+function isTextEntry(target: EventTarget | null): boolean {
+  const el = target as HTMLElement | null;
+  if (!el || !el.tagName) return false;
+  return el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable;
+}
+
 export default function Workspace({ roomId, role }: WorkspaceProps) {
+  const { data: me } = useMe();
+  const room = useRoomDoc(roomId);
+  const { design, error: docError } = useRoomDesign(room.doc, room.everSynced);
+  const events = useRoomEvents(roomId, me?.id ?? null);
+  const currentRole: RoomRole | null = events.roleUpdate ? events.roleUpdate.role : role;
+  const lostAccess = room.status === 'denied' || currentRole === null || events.deleted;
+  const editable = !lostAccess && (currentRole === 'owner' || currentRole === 'tuner');
+  const editor = useLocalUndo(room.doc, me?.id ?? null);
+  const edits = useDesignEdits(room.doc, editor, editable);
+  const presenceUser = useMemo<PresenceUser | null>(
+    () => (me ? { id: me.id, name: me.displayName, role: currentRole ?? role, color: presenceColour(me.id) } : null),
+    [me, currentRole, role],
+  );
+  const presence = usePresence(room.provider, presenceUser);
+  const analysis = useAnalysis(design);
+  const client = getEngineClient();
+
+  const [selected, setSelected] = useState<string | null>(null);
+  const [tab, setTab] = useState<TabKey>('element');
+  const [series, setSeries] = useState<ESeries | null>(null);
+  const [preview, setPreview] = useState<ChainPreview | null>(null);
+  const [envelope, setEnvelope] = useState<YieldEnvelope>(null);
+  const [view, setView] = useState<ChartView>(DEFAULT_VIEW);
+  const [plotMode, setPlotMode] = useState<SweepPlotMode>('return-loss');
+  const [following, setFollowing] = useState<string | null>(null);
+  const [sideWidth, setSideWidth] = useState(400);
+  const [chainHeight, setChainHeight] = useState(CANVAS_HEIGHT + PALETTE_HEIGHT + 8);
+  const [notice, setNotice] = useState<string | null>(null);
+  const seriesId = useId();
+
+  // The selection only names elements that still exist (a collaborator may delete one).
+  const selectedId = design && selected && design.elements.some((e) => e.id === selected) ? selected : null;
+  const selectedElement = design?.elements.find((e) => e.id === selectedId) ?? null;
+
+  // ---- follow: take the followed member's selection and chart view ----------------------------
+  const stopFollowing = useCallback(() => setFollowing(null), []);
+  const selectByUser = useCallback(
+    (id: string | null) => {
+      setSelected(id);
+      if (id) setTab('element');
+      stopFollowing();
+    },
+    [stopFollowing],
+  );
+  const viewByUser = useCallback(
+    (v: ChartView) => {
+      setView(v);
+      stopFollowing();
+    },
+    [stopFollowing],
+  );
+  useEffect(() => {
+    events.follow(following);
+    presence.setFollowing(following);
+  }, [following]);
+  const followedPeer = following ? presence.peers.find((p) => p.user.id === following) : undefined;
+  useEffect(() => {
+    if (!followedPeer) return;
+    setSelected(followedPeer.selection);
+    if (followedPeer.view) setView(followedPeer.view);
+  }, [followedPeer?.selection, followedPeer?.view?.zoom, followedPeer?.view?.cx, followedPeer?.view?.cy]);
+  useEffect(() => {
+    const fv = events.followedView;
+    if (!fv || fv.userId !== following) return;
+    if (fv.view.selectedElementId !== undefined) setSelected(fv.view.selectedElementId);
+    const smith = fv.view.charts?.smith;
+    if (smith?.zoom !== undefined) setView({ zoom: smith.zoom, cx: smith.panX ?? 0, cy: smith.panY ?? 0 });
+  }, [events.followedView, following]);
+
+  // ---- publish what I look at ------------------------------------------------------------------
+  useEffect(() => presence.setSelection(selectedId), [selectedId, presence.setSelection]);
+  useEffect(() => {
+    presence.setView(view);
+    const v: ViewState = { selectedElementId: selectedId, charts: { smith: { zoom: view.zoom, panX: view.cx, panY: view.cy } }, panel: tab };
+    events.sendView(v);
+  }, [view, selectedId, tab]);
+
+  // ---- undo / redo (this user's own edits only) -----------------------------------------------
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (!editor || !editable || isTextEntry(e.target)) return;
+      const mod = e.ctrlKey || e.metaKey;
+      if (!mod) return;
+      const key = e.key.toLowerCase();
+      if (key === 'z' && !e.shiftKey) editor.undo();
+      else if ((key === 'z' && e.shiftKey) || key === 'y') editor.redo();
+      else return;
+      e.preventDefault();
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [editor, editable]);
+
+  const say = useCallback((text: string) => setNotice(text), []);
+  useEffect(() => {
+    if (!notice) return;
+    const t = setTimeout(() => setNotice(null), 6000);
+    return () => clearTimeout(t);
+  }, [notice]);
+
+  // ---- chain edits -----------------------------------------------------------------------------
+  const addElement = (kind: ElementKind) => {
+    if (!design) return;
+    const at = selectedId ? design.elements.findIndex((e) => e.id === selectedId) + 1 : undefined;
+    const id = edits.add(kind, at);
+    if (id) {
+      setSelected(id);
+      setTab('element');
+    }
+  };
+  const removeEl = (id: string) => {
+    if (!design) return;
+    const i = design.elements.findIndex((e) => e.id === id);
+    const neighbour = design.elements[i + 1] ?? design.elements[i - 1] ?? null;
+    edits.remove(id);
+    setSelected(neighbour?.id ?? null);
+  };
+  const duplicateEl = (id: string) => {
+    const copy = edits.duplicate(id);
+    if (copy) setSelected(copy);
+  };
+  const elementActions = {
+    setField: edits.setField,
+    setFields: edits.setFields,
+    tuneField: edits.tuneField,
+    remove: removeEl,
+    duplicate: duplicateEl,
+    move: edits.move,
+  };
+
+  // ---- sizes -----------------------------------------------------------------------------------
+  const root = useRef<HTMLDivElement>(null);
+  const screenHeight = useScreenHeight(root);
+  const chartsBox = useRef<HTMLDivElement>(null);
+  const chartsSize = useElementSize(chartsBox);
+  const chainBox = useRef<HTMLDivElement>(null);
+  const chainSize = useElementSize(chainBox);
+  const chartSide = Math.max(160, Math.min(chartsSize.height, Math.floor(chartsSize.width * 0.52)));
+  const plotWidth = Math.max(160, chartsSize.width - chartSide - 8);
+
+  const cursors = useMemo<ChartCursor[]>(
+    () =>
+      presence.peers.flatMap((p) =>
+        p.cursor?.area === 'chart' ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, gamma: p.cursor.gamma }] : [],
+      ),
+    [presence.peers],
+  );
+  const rows = useMemo(
+    () => presenceRows(events.members, presence.peers, me ? { id: me.id, name: me.displayName, role: currentRole ?? role } : null),
+    [events.members, presence.peers, me, currentRole, role],
+  );
+  const others = rows.filter((r) => !r.isMe);
+  const followedName = following ? (rows.find((r) => r.userId === following)?.name ?? 'a member') : null;
+  const onChartCursor = useCallback((g: [number, number] | null) => presence.setCursor(g ? { area: 'chart', gamma: g } : null), [presence]);
+  const nameOfElement = useCallback((id: string) => {
+    const e = design?.elements.find((x) => x.id === id);
+    return e ? elementName(e) : id;
+  }, [design]);
+
+  const tabs: { key: TabKey; label: string; badge?: string | null }[] = [
+    { key: 'element', label: 'Element', badge: selectedElement ? elementName(selectedElement) : null },
+    { key: 'load', label: 'Load' },
+    { key: 'band', label: 'Band & port' },
+    { key: 'figures', label: 'Figures' },
+    { key: 'finder', label: 'Match finder' },
+    { key: 'refine', label: 'Refine' },
+    { key: 'yield', label: 'Yield run' },
+    { key: 'room', label: 'Room', badge: others.length ? String(others.length) : null },
+  ];
+
   return (
-    <main aria-label="Room workspace" data-room-id={roomId} data-role={role} className="p-4">
-      <p role="status">Opening the room…</p>
-    </main>
+    <div
+      ref={root}
+      className="flex flex-col overflow-hidden rounded-xl border border-rule bg-card/60"
+      style={{ height: screenHeight }}
+      data-testid="workspace"
+      data-role={currentRole ?? 'none'}
+      data-synced={room.synced ? 'true' : 'false'}
+    >
+      {/* toolbar */}
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-1 border-b border-rule bg-card px-3 py-1.5">
+        <ConnectionChip status={room.status} synced={room.synced} />
+        {!editable && !lostAccess && (
+          <span className="rounded-full bg-slate-soft px-2 py-0.5 text-[11px] font-bold text-ink-soft" data-testid="read-only-chip">
+            Watching: read-only
+          </span>
+        )}
+        {editable && editor && (
+          <span className="flex items-center gap-1" role="group" aria-label="Undo and redo your own edits">
+            <button type="button" className={smallButton()} disabled={!editor.canUndo} onClick={editor.undo} title="Undo your last edit (Ctrl+Z)">
+              Undo
+            </button>
+            <button type="button" className={smallButton()} disabled={!editor.canRedo} onClick={editor.redo} title="Redo (Ctrl+Shift+Z)">
+              Redo
+            </button>
+          </span>
+        )}
+        <span className="min-w-0 flex-1" aria-live="polite">
+          {notice && <span className="text-xs text-teal-deep">{notice}</span>}
+        </span>
+        {others.length > 0 && (
+          <label className="flex items-center gap-1 text-xs">
+            <span className="font-semibold text-ink-soft">Follow</span>
+            <select
+              value={following ?? ''}
+              onChange={(e) => setFollowing(e.target.value || null)}
+              className="rounded-md border border-rule bg-card px-1 py-0.5 text-xs"
+              aria-label="Follow a member’s view"
+            >
+              <option value="">nobody</option>
+              {others.map((r) => (
+                <option key={r.userId} value={r.userId}>
+                  {r.name} ({r.role})
+                </option>
+              ))}
+            </select>
+          </label>
+        )}
+        {followedName && (
+          <span className="flex items-center gap-1 rounded-full bg-violet-soft px-2 py-0.5 text-[11px] font-bold text-violet-deep" data-testid="following-chip">
+            Following {followedName}
+            <button type="button" className="underline" onClick={stopFollowing}>
+              stop
+            </button>
+          </span>
+        )}
+        <PresenceAvatars rows={rows} />
+      </div>
+
+      <WorkspaceBanners
+        lostAccess={lostAccess}
+        deleted={events.deleted}
+        status={room.status}
+        everSynced={room.everSynced}
+        docError={docError}
+        analysisError={analysis.error}
+        hasDesign={design !== null}
+      />
+
+      {design && (
+        <div className="border-b border-rule bg-paper/60 px-3 py-1.5">
+          <FiguresSummary design={design} result={analysis.result} pending={analysis.pending} />
+        </div>
+      )}
+
+      <div className="flex min-h-0 flex-1">
+        {/* charts and chain */}
+        <div className="flex min-w-0 flex-1 flex-col p-2">
+          <div ref={chartsBox} className="flex min-h-0 flex-1 gap-2">
+            {design && chartsSize.width > 0 && (
+              <>
+                <SmithChart
+                  width={chartSide}
+                  height={Math.max(160, chartsSize.height)}
+                  design={design}
+                  result={analysis.result}
+                  path={analysis.path}
+                  selectedElementId={selectedId}
+                  onSelectElement={selectByUser}
+                  envelope={envelope}
+                  preview={preview}
+                  cursors={cursors}
+                  onCursorMove={onChartCursor}
+                  view={view}
+                  onViewChange={viewByUser}
+                />
+                <div className="flex min-w-0 flex-1 flex-col">
+                  <div className="mb-1 flex items-center gap-1" role="group" aria-label="Plot">
+                    {(['return-loss', 'vswr'] as const).map((m) => (
+                      <button
+                        key={m}
+                        type="button"
+                        aria-pressed={plotMode === m}
+                        onClick={() => setPlotMode(m)}
+                        className={plotMode === m ? smallButton('primary') : smallButton()}
+                      >
+                        {m === 'return-loss' ? 'Return loss' : 'VSWR'}
+                      </button>
+                    ))}
+                  </div>
+                  <SweepPlot
+                    width={plotWidth}
+                    height={Math.max(140, chartsSize.height - 30)}
+                    design={design}
+                    result={analysis.result}
+                    mode={plotMode}
+                    envelope={envelope}
+                  />
+                </div>
+              </>
+            )}
+          </div>
+          <SplitHandle
+            orientation="horizontal"
+            label="Resize the chain canvas"
+            value={chainHeight}
+            min={CANVAS_HEIGHT + 8}
+            max={Math.max(CANVAS_HEIGHT + 8, screenHeight - 300)}
+            onChange={setChainHeight}
+            inverted
+          />
+          <section aria-label="Chain canvas" className="flex shrink-0 flex-col gap-1" style={{ height: chainHeight }}>
+            {editable ? (
+              <div className="flex flex-wrap items-center justify-between gap-2" style={{ minHeight: PALETTE_HEIGHT - 6 }}>
+                <ElementPalette onAdd={addElement} />
+                <StepSeriesSelect id={seriesId} value={series} onChange={setSeries} />
+              </div>
+            ) : null}
+            <div ref={chainBox} className="min-h-0 flex-1 rounded-md border border-rule bg-card">
+              {design && (
+                <ChainCanvas
+                  design={design}
+                  width={Math.max(0, chainSize.width - 2)}
+                  selectedId={selectedId}
+                  onSelect={selectByUser}
+                  editable={editable}
+                  series={series}
+                  onTune={edits.tuneField}
+                  onMove={edits.move}
+                  onRemove={removeEl}
+                  onDuplicate={duplicateEl}
+                  peers={presence.peers}
+                  onCursor={presence.setCursor}
+                />
+              )}
+            </div>
+          </section>
+        </div>
+
+        <SplitHandle orientation="vertical" label="Resize the side panel" value={sideWidth} min={320} max={640} onChange={setSideWidth} inverted />
+
+        {/* side panel */}
+        <aside aria-label="Side panel" className="flex shrink-0 flex-col border-l border-rule bg-paper/40" style={{ width: sideWidth }}>
+          <SideTabs<TabKey> tabs={tabs} active={tab} onChange={setTab} label="Side panel">
+            {!design ? (
+              <p className="text-sm text-ink-faint">{room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}</p>
+            ) : tab === 'element' ? (
+              <div className="flex flex-col gap-4">
+                {selectedElement ? (
+                  <ElementInspector design={design} element={selectedElement} editable={editable} series={series} actions={elementActions} />
+                ) : (
+                  <p className="text-sm text-ink-soft">
+                    {design.elements.length
+                      ? 'Select an element on the chain canvas or in the list below.'
+                      : editable
+                        ? 'No network yet. Add parts from the palette under the chart, or let the match finder propose one.'
+                        : 'No network yet.'}
+                  </p>
+                )}
+                <ChainList design={design} selectedId={selectedId} onSelect={selectByUser} />
+                {editable && design.elements.length === 0 && (
+                  <button type="button" className={smallButton('primary')} onClick={() => setTab('finder')}>
+                    Open the match finder
+                  </button>
+                )}
+              </div>
+            ) : tab === 'load' ? (
+              <LoadForm design={design} editable={editable} onApply={edits.applyPatch} />
+            ) : tab === 'band' ? (
+              <div className="flex flex-col gap-5">
+                <BandForm design={design} editable={editable} onApply={edits.applyPatch} />
+                <PortForm design={design} editable={editable} onApply={edits.applyPatch} />
+              </div>
+            ) : tab === 'figures' ? (
+              <FiguresPanel design={design} result={analysis.result} error={analysis.error} />
+            ) : tab === 'finder' ? (
+              <MatchFinderPanel
+                design={design}
+                editable={editable}
+                client={client}
+                onPreview={setPreview}
+                onApply={(elements, what) => {
+                  edits.replaceChain(elements);
+                  setSelected(null);
+                  say(`Applied ${what}. Ctrl+Z takes it back.`);
+                }}
+              />
+            ) : tab === 'refine' ? (
+              <RefinePanel
+                design={design}
+                editable={editable}
+                client={client}
+                onApply={(changes) => {
+                  edits.applyChanges(changes);
+                  say('Applied the refined values. Ctrl+Z takes them back.');
+                }}
+              />
+            ) : tab === 'yield' ? (
+              <YieldPanel design={design} client={client} onEnvelope={setEnvelope} />
+            ) : (
+              <div className="flex flex-col gap-4">
+                <section aria-labelledby="presence-title">
+                  <h3 id="presence-title" className="mb-1.5 text-sm font-bold text-ink">
+                    Presence
+                  </h3>
+                  <PresenceList rows={rows} followingId={following} onFollow={setFollowing} elementName={nameOfElement} />
+                </section>
+                <section aria-labelledby="log-title">
+                  <h3 id="log-title" className="mb-1.5 text-sm font-bold text-ink">
+                    Room log
+                  </h3>
+                  <RoomLog entries={events.log} />
+                </section>
+              </div>
+            )}
+          </SideTabs>
+          {lostAccess && (
+            <p className="border-t border-rule p-2 text-xs">
+              <Link to={paths.rooms.getHref()} className="font-semibold underline">
+                Back to your rooms
+              </Link>
+            </p>
+          )}
+        </aside>
+      </div>
+    </div>
+  );
+}
+
+function ConnectionChip({ status, synced }: { status: string; synced: boolean }) {
+  const text =
+    status === 'denied' ? 'No access' : status === 'connected' ? (synced ? 'Live' : 'Syncing…') : status === 'connecting' ? 'Connecting…' : 'Reconnecting…';
+  const tone = status === 'connected' && synced ? 'bg-teal-soft text-teal-deep' : status === 'denied' ? 'bg-coral-soft text-coral-deep' : 'bg-amber-soft text-amber-deep';
+  return (
+    <span role="status" className={`flex items-center gap-1.5 rounded-full px-2 py-0.5 text-[11px] font-bold ${tone}`} data-testid="connection-status">
+      <span className="size-1.5 rounded-full bg-current" aria-hidden="true" />
+      {text}
+    </span>
+  );
+}
+
+/** The chain as a list (port side first, as on the canvas): a keyboard and screen-reader way to pick an element. */
+function ChainList({
+  design,
+  selectedId,
+  onSelect,
+}: {
+  design: NonNullable<ReturnType<typeof useRoomDesign>['design']>;
+  selectedId: string | null;
+  onSelect(id: string): void;
+}) {
+  if (!design.elements.length) return null;
+  const fromPort = [...design.elements].reverse();
+  return (
+    <section aria-labelledby="chain-list-title">
+      <h3 id="chain-list-title" className="mb-1 text-xs font-bold text-ink-soft">
+        Chain, port → load
+      </h3>
+      <ol className="flex flex-col gap-0.5" data-testid="chain-list">
+        {fromPort.map((e) => (
+          <li key={e.id}>
+            <button
+              type="button"
+              aria-current={e.id === selectedId ? 'true' : undefined}
+              onClick={() => onSelect(e.id)}
+              className={
+                e.id === selectedId
+                  ? 'numeric w-full rounded-md bg-amber-soft px-2 py-1 text-left text-xs font-semibold text-ink ring-1 ring-amber'
+                  : 'numeric w-full rounded-md px-2 py-1 text-left text-xs text-ink hover:bg-paper-deep'
+              }
+            >
+              {elementDescription(e)}
+            </button>
+          </li>
+        ))}
+      </ol>
+    </section>
   );
 }
