@@ -10,33 +10,37 @@
  *   S of the chain alone from T on referenceOhms (abcd.ts, Pozar Table 4.2).
  * Nothing is allocated per point. See README.md for units, layouts and null conventions.
  */
-import { sFromAbcd, smithDiv } from './abcd';
 import { bandwidthAround, worstInBand, type Bandwidth, type WorstInBand } from './bandwidth';
-import { chainZin, gammaFromZin, impedanceRatio, portImpedance, sweepContext } from './cascade';
+import { chainZin, gammaFromZin, impedanceRatio, lineAngles, lineAnglesAdvance, portImpedance, sweepContext } from './cascade';
+import { IMPEDANCE_OPEN_OHMS } from './complex';
 import { goalMaxGamma, type Complex, type Design } from './design';
-import {
-  chainPlan,
-  K_LINE,
-  K_OPEN_STUB,
-  K_SERIES_C,
-  K_SERIES_L,
-  K_SERIES_R,
-  K_SHORT_STUB,
-  K_SHUNT_C,
-  K_SHUNT_L,
-  K_SHUNT_R,
-  K_TRANSFORMER,
-  K_TWO_PORT,
-  SHORT_STUB_MIN_SINH,
-  type ChainPlan,
-} from './elements';
-import { mismatchLossDbFromGamma, returnLossDbFromGamma, vswrFromGamma } from './figures';
+import { chainPlan, type ChainPlan } from './elements';
+import { RETURN_LOSS_FLOOR_GAMMA } from './figures';
 import { centerFrequency, sweepFrequencies } from './frequency';
 import { bodeFanoLimit, type Limit } from './limit';
 import { loadImpedances } from './loads';
 import { chainNodesAt, nodeImpedances, stressAt, type ElementStress } from './stress';
 
 const TWO_PI = 2 * Math.PI;
+// Kind codes and the stub floor of elements.ts, repeated so the hot switch compares against local
+// constants (see cascade.ts); tests/rf/kind-codes.test.ts keeps the copies equal.
+const K_SERIES_L = 1;
+const K_SERIES_C = 2;
+const K_SERIES_R = 3;
+const K_SHUNT_L = 4;
+const K_SHUNT_C = 5;
+const K_SHUNT_R = 6;
+const K_LINE = 7;
+const K_OPEN_STUB = 8;
+const K_SHORT_STUB = 9;
+const K_TRANSFORMER = 10;
+const K_TWO_PORT = 11;
+const SHORT_STUB_MIN_SINH = 1e-60;
+const OPEN2 = IMPEDANCE_OPEN_OHMS * IMPEDANCE_OPEN_OHMS;
+const RL_FLOOR = RETURN_LOSS_FLOOR_GAMMA;
+const advanceAngles = lineAnglesAdvance;
+/** The codes this module's loop uses (for the test that keeps them equal to elements.ts). */
+export const ANALYZE_KIND_CODES = { K_SERIES_L, K_SERIES_C, K_SERIES_R, K_SHUNT_L, K_SHUNT_C, K_SHUNT_R, K_LINE, K_OPEN_STUB, K_SHORT_STUB, K_TRANSFORMER, K_TWO_PORT, SHORT_STUB_MIN_SINH };
 
 export interface Stage {
   /** "load", or the id of the element after which the impedance is taken. */
@@ -105,14 +109,16 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
   const s21 = new Float64Array(2 * n);
   const s12 = new Float64Array(2 * n);
   const s22 = new Float64Array(2 * n);
-  const t = new Float64Array(8);
-  const sOut = new Float64Array(8);
   const { kinds, p, tables, count } = plan;
+  const angles = lineAngles(plan, freqs);
+  const { cs, sn } = angles;
   const [zsr, zsi] = zs;
+  const iz0 = 1 / z0;
 
   for (let i = 0; i < n; i++) {
     const f = freqs[i];
     const w = TWO_PI * f;
+    advanceAngles(angles, i, f);
     let ar = 1, ai = 0, br = 0, bi = 0, cr = 0, ci = 0, dr = 1, di = 0;
     for (let e = 0; e < count; e++) {
       const o = 4 * e;
@@ -157,9 +163,18 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
           break;
         case K_LINE: {
           const z0l = p[o];
-          const th = p[o + 1] * f;
-          const c = Math.cos(th);
-          const s = Math.sin(th);
+          const c = cs[e];
+          const s = sn[e];
+          if (p[o + 3] === 0) {
+            // Lossless: [cos, jZ0 sin; j sin/Z0, cos]·T.
+            const bs = z0l * s, cs1 = s / z0l;
+            const nar = c * ar - bs * ci, nai = c * ai + bs * cr;
+            const nbr = c * br - bs * di, nbi = c * bi + bs * dr;
+            const ncr = c * cr - cs1 * ai, nci = c * ci + cs1 * ar;
+            const ndr = c * dr - cs1 * bi, ndi = c * di + cs1 * br;
+            ar = nar; ai = nai; br = nbr; bi = nbi; cr = ncr; ci = nci; dr = ndr; di = ndi;
+            continue;
+          }
           const mr = p[o + 2] * c, mi = p[o + 3] * s; // cosh γl (A and D of the line)
           const sr = p[o + 3] * c, si = p[o + 2] * s; // sinh γl
           const lbr = z0l * sr, lbi = z0l * si;
@@ -178,9 +193,8 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
         case K_OPEN_STUB:
         case K_SHORT_STUB: {
           const z0l = p[o];
-          const th = p[o + 1] * f;
-          const c = Math.cos(th);
-          const s = Math.sin(th);
+          const c = cs[e];
+          const s = sn[e];
           const chr = p[o + 2] * c, chi = p[o + 3] * s;
           const shr = p[o + 3] * c, shi = p[o + 2] * s;
           let nr = shr, ni = shi, qr = chr, qi = chi; // Y·z0 = num/den
@@ -234,37 +248,70 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
       }
     }
 
-    const lr = loadZ[2 * i];
-    const li = loadZ[2 * i + 1];
+    const o2 = 2 * i;
+    const lr = loadZ[o2];
+    const li = loadZ[o2 + 1];
+    // N = A·Z_L + B, D' = C·Z_L + D.
     const nr = ar * lr - ai * li + br;
     const ni = ar * li + ai * lr + bi;
     const qr = cr * lr - ci * li + dr;
     const qi = cr * li + ci * lr + di;
-    impedanceRatio(nr, ni, qr, qi, zin, 2 * i);
-    // Γ = (N − Zs*·D')/(N + Zs·D')
+    const n2 = nr * nr + ni * ni;
+    const q2 = qr * qr + qi * qi;
+    if (n2 <= OPEN2 * q2) {
+      zin[o2] = (nr * qr + ni * qi) / q2;
+      zin[o2 + 1] = (ni * qr - nr * qi) / q2;
+    } else impedanceRatio(nr, ni, qr, qi, zin, o2);
+
+    // Γ = (N − Zs*·D')/(N + Zs·D'); Vs = N + Zs·D' for a load current of 1.
     const gnr = nr - (zsr * qr + zsi * qi);
     const gni = ni - (zsr * qi - zsi * qr);
-    const gdr = nr + (zsr * qr - zsi * qi);
-    const gdi = ni + (zsr * qi + zsi * qr);
-    smithDiv(gnr, gni, gdr, gdi, gamma, 2 * i);
-    const gr = gamma[2 * i];
-    const gi = gamma[2 * i + 1];
+    const vsr = nr + (zsr * qr - zsi * qi);
+    const vsi = ni + (zsr * qi + zsi * qr);
+    // Scale Vs to unit size before dividing, so huge chain matrices cannot overflow.
+    const vm = Math.abs(vsr) > Math.abs(vsi) ? Math.abs(vsr) : Math.abs(vsi);
+    const k = vm > 0 ? 1 / vm : 0;
+    const ur = vsr * k, ui = vsi * k;
+    const u2 = ur * ur + ui * ui;
+    const gr = ((gnr * k) * ur + (gni * k) * ui) / u2;
+    const gi = ((gni * k) * ur - (gnr * k) * ui) / u2;
+    gamma[o2] = gr;
+    gamma[o2 + 1] = gi;
     const mag = Math.sqrt(gr * gr + gi * gi);
     gammaMagnitude[i] = mag;
-    vswr[i] = vswrFromGamma(mag);
-    returnLossDb[i] = returnLossDbFromGamma(mag);
-    mismatchLossDb[i] = mismatchLossDbFromGamma(mag);
-    // 4·Re Z_L·Re Zs/|Vs|², computed as a ratio of scaled terms so large matrices cannot overflow.
-    const sc = Math.max(Math.abs(gdr), Math.abs(gdi));
-    const pw = sc > 0 ? (4 * (lr / sc) * (zsr / sc)) / ((gdr / sc) ** 2 + (gdi / sc) ** 2) : 0;
-    powerToLoad[i] = Number.isFinite(pw) ? pw : 0;
+    // Figures (figures.ts conventions, inlined).
+    if (mag >= 1) {
+      vswr[i] = Infinity;
+      mismatchLossDb[i] = Infinity;
+    } else {
+      vswr[i] = (1 + mag) / (1 - mag);
+      mismatchLossDb[i] = -10 * Math.log10(1 - mag * mag);
+    }
+    returnLossDb[i] = -20 * Math.log10(mag > RL_FLOOR ? mag : RL_FLOOR);
+    // P_load/P_avail = 4·Re Z_L·Re Zs/|Vs|².
+    const pw = (4 * (lr * k) * (zsr * k)) / u2;
+    powerToLoad[i] = pw === pw && pw !== Infinity && pw !== -Infinity ? pw : 0;
 
-    t[0] = ar; t[1] = ai; t[2] = br; t[3] = bi; t[4] = cr; t[5] = ci; t[6] = dr; t[7] = di;
-    sFromAbcd(t, 0, z0, sOut, 0);
-    s11[2 * i] = sOut[0]; s11[2 * i + 1] = sOut[1];
-    s12[2 * i] = sOut[2]; s12[2 * i + 1] = sOut[3];
-    s21[2 * i] = sOut[4]; s21[2 * i + 1] = sOut[5];
-    s22[2 * i] = sOut[6]; s22[2 * i + 1] = sOut[7];
+    // Chain S on z0 (Pozar Table 4.2): Δ = A + B/z0 + C·z0 + D.
+    const bnr = br * iz0, bni = bi * iz0, czr = cr * z0, czi = ci * z0;
+    const er = ar + bnr + czr + dr, ei = ai + bni + czi + di;
+    const em = Math.abs(er) > Math.abs(ei) ? Math.abs(er) : Math.abs(ei);
+    const h = 1 / em;
+    const hr = er * h, hi = ei * h;
+    const h2 = (hr * hr + hi * hi) * em;
+    const xr = hr / h2, xi = -hi / h2; // 1/Δ
+    const s11r = ar + bnr - czr - dr, s11i = ai + bni - czi - di;
+    s11[o2] = s11r * xr - s11i * xi;
+    s11[o2 + 1] = s11r * xi + s11i * xr;
+    const s22r = -ar + bnr - czr + dr, s22i = -ai + bni - czi + di;
+    s22[o2] = s22r * xr - s22i * xi;
+    s22[o2 + 1] = s22r * xi + s22i * xr;
+    s21[o2] = 2 * xr;
+    s21[o2 + 1] = 2 * xi;
+    const detr = ar * dr - ai * di - (br * cr - bi * ci);
+    const deti = ar * di + ai * dr - (br * ci + bi * cr);
+    s12[o2] = 2 * (detr * xr - deti * xi);
+    s12[o2 + 1] = 2 * (detr * xi + deti * xr);
   }
   return { zin, gamma, gammaMagnitude, vswr, returnLossDb, mismatchLossDb, powerToLoad, s: { s11, s21, s12, s22 } };
 }

@@ -11,26 +11,29 @@
  */
 import { IMPEDANCE_OPEN_OHMS } from './complex';
 import { type Complex, type Design, type Element } from './design';
-import {
-  chainPlan,
-  K_LINE,
-  K_OPEN_STUB,
-  K_SERIES_C,
-  K_SERIES_L,
-  K_SERIES_R,
-  K_SHORT_STUB,
-  K_SHUNT_C,
-  K_SHUNT_L,
-  K_SHUNT_R,
-  K_TRANSFORMER,
-  K_TWO_PORT,
-} from './elements';
+import { chainPlan, type ChainPlan } from './elements';
 import { sweepFrequencies } from './frequency';
 import { loadImpedances } from './loads';
 
 export { bandFrequencies } from './frequency';
 
 const TWO_PI = 2 * Math.PI;
+// Kind codes of elements.ts, repeated here on purpose: an imported binding read inside the hot
+// switch costs a property load per case once the module is compiled to CommonJS (tsx, Vitest),
+// which made the loop ten times slower. tests/rf/kind-codes.test.ts keeps the copies equal.
+const K_SERIES_L = 1;
+const K_SERIES_C = 2;
+const K_SERIES_R = 3;
+const K_SHUNT_L = 4;
+const K_SHUNT_C = 5;
+const K_SHUNT_R = 6;
+const K_LINE = 7;
+const K_OPEN_STUB = 8;
+const K_SHORT_STUB = 9;
+const K_TRANSFORMER = 10;
+const K_TWO_PORT = 11;
+/** The kind codes this module's loop uses (for the test that keeps them equal to elements.ts). */
+export const CASCADE_KIND_CODES = { K_SERIES_L, K_SERIES_C, K_SERIES_R, K_SHUNT_L, K_SHUNT_C, K_SHUNT_R, K_LINE, K_OPEN_STUB, K_SHORT_STUB, K_TRANSFORMER, K_TWO_PORT };
 const OPEN2 = IMPEDANCE_OPEN_OHMS * IMPEDANCE_OPEN_OHMS;
 
 /** What the fast path needs about a design on one frequency grid. */
@@ -70,9 +73,12 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
   const res = out ?? new Float64Array(2 * n);
   const plan = chainPlan(elements, freqs);
   const { kinds, p, tables, count } = plan;
+  const angles = lineAngles(plan, freqs);
+  const { cs, sn } = angles;
   for (let i = 0; i < n; i++) {
     const f = freqs[i];
     const w = TWO_PI * f;
+    lineAnglesAdvance(angles, i, f);
     let nr = loadZ[2 * i];
     let ni = loadZ[2 * i + 1];
     let dr = 1;
@@ -130,9 +136,20 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
           break;
         case K_LINE: {
           const z0 = p[o];
-          const th = p[o + 1] * f;
-          const c = Math.cos(th);
-          const s = Math.sin(th);
+          const c = cs[e];
+          const s = sn[e];
+          if (p[o + 3] === 0) {
+            // Lossless: A = D = cos βl, B = jZ0 sin βl, C = j sin βl / Z0.
+            const zs = z0 * s, ys = s / z0;
+            const tr = c * nr - zs * di;
+            const ti = c * ni + zs * dr;
+            const ur = c * dr - ys * ni;
+            di = c * di + ys * nr;
+            dr = ur;
+            nr = tr;
+            ni = ti;
+            break;
+          }
           const ar = p[o + 2] * c, ai = p[o + 3] * s; // cosh γl
           const sr = p[o + 3] * c, si = p[o + 2] * s; // sinh γl
           const br = z0 * sr, bi = z0 * si;
@@ -151,9 +168,8 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
         case K_SHORT_STUB: {
           // Open: N' = N·cosh, D' = D·cosh + N·sinh/z0. Short: the same with cosh and sinh swapped.
           const z0 = p[o];
-          const th = p[o + 1] * f;
-          const c = Math.cos(th);
-          const s = Math.sin(th);
+          const c = cs[e];
+          const s = sn[e];
           let ar = p[o + 2] * c, ai = p[o + 3] * s;
           let sr = p[o + 3] * c, si = p[o + 2] * s;
           if (kinds[e] === K_SHORT_STUB) {
@@ -211,6 +227,69 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
     impedanceRatio(nr, ni, dr, di, res, 2 * i);
   }
   return res;
+}
+
+/** Re-evaluate cos/sin exactly every this many points of a uniform grid (rotation in between). */
+const ANGLE_RESYNC = 16;
+
+/**
+ * cos βl and sin βl of every line and stub at the current grid point. On a uniformly spaced grid
+ * they advance by a fixed rotation (angle addition: 4 multiplications instead of two trigonometric
+ * calls) and are recomputed exactly every ANGLE_RESYNC points, which bounds the drift to a few
+ * ulps; on any other grid they are computed directly at each point.
+ */
+export interface LineAngles {
+  readonly lines: Int32Array;
+  readonly radPerHz: Float64Array;
+  readonly cs: Float64Array;
+  readonly sn: Float64Array;
+  readonly cd: Float64Array;
+  readonly sd: Float64Array;
+  readonly uniform: boolean;
+}
+
+export function lineAngles(plan: ChainPlan, freqs: Float64Array): LineAngles {
+  const idx: number[] = [];
+  for (let e = 0; e < plan.count; e++) {
+    const k = plan.kinds[e];
+    if (k === K_LINE || k === K_OPEN_STUB || k === K_SHORT_STUB) idx.push(e);
+  }
+  const n = freqs.length;
+  let uniform = n > 2;
+  const step = n > 1 ? freqs[1] - freqs[0] : 0;
+  for (let i = 2; uniform && i < n; i++) if (Math.abs(freqs[i] - freqs[i - 1] - step) > 1e-12 * Math.abs(freqs[i])) uniform = false;
+  const count = plan.count;
+  const radPerHz = new Float64Array(count);
+  const cd = new Float64Array(count);
+  const sd = new Float64Array(count);
+  for (const e of idx) {
+    radPerHz[e] = plan.p[4 * e + 1];
+    cd[e] = Math.cos(radPerHz[e] * step);
+    sd[e] = Math.sin(radPerHz[e] * step);
+  }
+  return { lines: Int32Array.from(idx), radPerHz, cs: new Float64Array(count), sn: new Float64Array(count), cd, sd, uniform };
+}
+
+export function lineAnglesAdvance(a: LineAngles, i: number, f: number): void {
+  const { lines, cs, sn } = a;
+  const m = lines.length;
+  if (m === 0) return;
+  if (!a.uniform || i % ANGLE_RESYNC === 0) {
+    for (let j = 0; j < m; j++) {
+      const e = lines[j];
+      const th = a.radPerHz[e] * f;
+      cs[e] = Math.cos(th);
+      sn[e] = Math.sin(th);
+    }
+    return;
+  }
+  const { cd, sd } = a;
+  for (let j = 0; j < m; j++) {
+    const e = lines[j];
+    const c = cs[e];
+    cs[e] = c * cd[e] - sn[e] * sd[e];
+    sn[e] = sn[e] * cd[e] + c * sd[e];
+  }
 }
 
 /**
