@@ -226,7 +226,7 @@ describe('chart read-out', () => {
       frequency: '2.44 GHz',
       z: '50.00 + j0.00 Ω',
       y: '20.00 + j0.00 mS',
-      gamma: '0.000∠0.0°',
+      gamma: '0.000 ∠ 0.0°',
       vswr: '1.00',
       returnLoss: '> 120 dB',
     });
@@ -237,7 +237,8 @@ describe('chart read-out', () => {
     expect(r.frequency).toBeNull();
     expect(r.z).toBe('50.00 + j50.00 Ω');
     expect(r.y).toBe('10.00 − j10.00 mS');
-    expect(r.gamma).toBe('0.447∠63.4°');
+    expect(r.gamma).toBe('0.447 ∠ 63.4°');
+    expect(chartReadout(zToGamma([50, -50], 50), 50, null).gamma).toBe('0.447 ∠ −63.4°');
     expect(r.vswr).toBe('2.62');
     expect(r.returnLoss).toBe('7.0 dB');
   });

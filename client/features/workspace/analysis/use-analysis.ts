@@ -1,8 +1,9 @@
 /**
  * FOR THE WORKSPACE ENGINEER:
  *   const { result, path, error, pending } = useAnalysis(design);
- * Re-analyses on every new `design` object (pass the design read from the room document; keep the
- * same object while nothing changed). Newest request wins; a superseded one is never shown.
+ * Re-analyses whenever the design's content changes (a new object with the same content is not
+ * re-analysed, so passing a freshly built design on every render is safe). Newest request wins; a
+ * superseded one is never shown.
  * `error` is a sentence for the user (a DesignError message); while there is an error the last good
  * result stays available so the chart does not blank out.
  */
@@ -33,7 +34,13 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
     };
   }, [scheduler]);
 
+  // Content, not identity, decides whether to re-analyse.
+  const key = useMemo(() => (design ? JSON.stringify(design) : ''), [design]);
+  const current = useRef(design);
+  current.current = design;
+
   useEffect(() => {
+    const design = current.current;
     if (!design) {
       scheduler.cancel();
       setState({ result: null, path: null, error: null, pending: false });
@@ -48,7 +55,7 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
         setState({ result: outcome.value.result, path: outcome.value.path, error: null, pending });
       } else setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending }));
     });
-  }, [design, scheduler]);
+  }, [key, scheduler]);
 
   return state;
 }

@@ -72,7 +72,8 @@ export function admittanceText(z: readonly [number, number], z0: number): string
 export function gammaText(g: readonly [number, number]): string {
   const m = gammaMagnitude(g);
   const angle = m < 5e-5 ? 0 : gammaAngleDeg(g);
-  return `${m.toFixed(3)}∠${angle.toFixed(1)}°`;
+  const a = angle.toFixed(1);
+  return `${m.toFixed(3)} ∠ ${a.startsWith('-') && Number(a) !== 0 ? `−${a.slice(1)}` : a.replace(/^-/, '')}°`;
 }
 
 export function vswrText(gammaMag: number): string {

@@ -375,18 +375,24 @@ function TraceShapes({ model }: { model: TraceModel }) {
         />,
       );
   }
+  const centre = model.bandMarks.find((b) => b.role === 'centre');
   for (const b of model.bandMarks) {
     if (b.role === 'centre')
       shapes.push(<RegularPolygon key="band-centre" x={b.x} y={b.y} sides={4} radius={6} fill={CHART_PALETTE.traceDeep} stroke={CHART_PALETTE.paper} strokeWidth={1.2} />);
     else {
-      shapes.push(<Circle key={`band-${b.role}`} x={b.x} y={b.y} radius={5} fill={CHART_PALETTE.paper} stroke={CHART_PALETTE.traceDeep} strokeWidth={2} />);
+      shapes.push(<Circle key={`band-${b.role}`} x={b.x} y={b.y} radius={4.5} fill={CHART_PALETTE.paper} stroke={CHART_PALETTE.traceDeep} strokeWidth={2} />);
       const text = frequencyText(b.hz);
-      const dx = b.x - model.frame.cx;
-      const dy = b.y - model.frame.cy;
+      // push each edge label away from the centre mark (so the two edges never share a spot), else away from Γ = 0
+      let dx = centre ? b.x - centre.x : 0;
+      let dy = centre ? b.y - centre.y : 0;
+      if (Math.hypot(dx, dy) < 2) {
+        dx = b.x - model.frame.cx;
+        dy = b.y - model.frame.cy;
+      }
       const d = Math.hypot(dx, dy) || 1;
       const w = labelWidth(text);
-      const lx = b.x + (dx / d) * 12 - (dx < 0 ? w : 0);
-      const ly = b.y + (dy / d) * 12 - 6;
+      const lx = b.x + (dx / d) * 14 - (dx < 0 ? w : 0);
+      const ly = b.y + (dy / d) * 14 - 6;
       shapes.push(<Text key={`band-${b.role}-t`} x={lx} y={ly} text={text} fontSize={10} fontStyle="bold" fontFamily={FONT} fill={CHART_PALETTE.traceDeep} />);
     }
   }

@@ -129,7 +129,9 @@ export function buildPlotModel(input: PlotInput): PlotModel {
     const top = Math.min(RETURN_LOSS_CEILING_DB, niceCeil(Math.max(best, (goal ?? 10) * 1.5, 10) + 2, 5));
     yRange = [0, top];
   } else {
-    yRange = [1, Math.min(VSWR_CEILING, Math.max(3, niceCeil((goal ?? 2) * 1.75, 1)))];
+    // room for the goal and for the worst in-band figure, up to the ceiling (beyond it the trace runs along the top)
+    const worst = result && Number.isFinite(result.worstInBand.vswr) ? result.worstInBand.vswr : VSWR_CEILING;
+    yRange = [1, Math.min(VSWR_CEILING, Math.max(3, niceCeil((goal ?? 2) * 1.75, 1), niceCeil(worst * 1.15, 1)))];
   }
 
   return {

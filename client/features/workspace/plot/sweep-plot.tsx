@@ -99,9 +99,13 @@ function decorations(u: uPlot, m: PlotModel): void {
     ctx.fillStyle = C.goal;
     ctx.font = FONT.replace('11px', `${11 * dpr}px`);
     ctx.textBaseline = 'bottom';
-    ctx.textAlign = 'right';
     const text = m.mode === 'return-loss' ? `goal ${m.goal.toFixed(1)} dB` : `goal VSWR ${Number(m.goal.toPrecision(3))}`;
-    ctx.fillText(text, left + width - 4 * dpr, y - 2 * dpr);
+    // at the right end, or the left end when a bandwidth edge would cross the label there
+    const w = ctx.measureText(text).width + 8 * dpr;
+    const edges = m.bandwidth ? [px(m.bandwidth.low), px(m.bandwidth.high)] : [];
+    const rightFree = !edges.some((x) => x > left + width - w && x < left + width);
+    ctx.textAlign = rightFree ? 'right' : 'left';
+    ctx.fillText(text, rightFree ? left + width - 4 * dpr : left + 4 * dpr, y - 2 * dpr);
   }
   if (m.bandwidth) {
     ctx.strokeStyle = C.bandwidth;
@@ -110,7 +114,7 @@ function decorations(u: uPlot, m: PlotModel): void {
     ctx.font = LABEL_FONT.replace('11px', `${10 * dpr}px`);
     ctx.fillStyle = C.bandwidth;
     ctx.textBaseline = 'top';
-    for (const [v, align] of [
+    for (const [v, outward] of [
       [m.bandwidth.low, 'right'],
       [m.bandwidth.high, 'left'],
     ] as const) {
@@ -119,8 +123,12 @@ function decorations(u: uPlot, m: PlotModel): void {
       ctx.moveTo(x, top);
       ctx.lineTo(x, top + height);
       ctx.stroke();
+      // label outside the bandwidth, unless that would leave the plot
+      const text = `${Number(v.toPrecision(4))}`;
+      const w = ctx.measureText(text).width + 4 * dpr;
+      const align = outward === 'right' ? (x - w < left ? 'left' : 'right') : x + w > left + width ? 'right' : 'left';
       ctx.textAlign = align;
-      ctx.fillText(`${Number(v.toPrecision(4))}`, x + (align === 'left' ? 3 : -3) * dpr, top + 3 * dpr);
+      ctx.fillText(text, x + (align === 'left' ? 3 : -3) * dpr, top + 3 * dpr);
     }
   }
   ctx.restore();
@@ -158,8 +166,8 @@ function plotOptions(m: PlotModel, width: number, height: number, model: { curre
       y: { range: () => model.current.yRange },
     },
     axes: [
-      { ...axis(m.xLabel), values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(6)))) },
-      { ...axis(m.yLabel), size: 48, values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(4)))) },
+      { ...axis(m.xLabel), size: 28, labelSize: 16, labelGap: 0, values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(6)))) },
+      { ...axis(m.yLabel), size: 40, labelSize: 18, labelGap: 0, values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(4)))) },
     ],
     series,
     bands,
