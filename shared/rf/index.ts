@@ -17,4 +17,4 @@ export * from './analyze';
 export * from './result';
 export * from './touchstone';
 export * from './units';
-export * from './path';
+export * from './impedance-path';

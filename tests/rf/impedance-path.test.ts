@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze } from '../../shared/rf/analyze';
 import { reflectionFromImpedance } from '../../shared/rf/complex';
 import { type Complex, type Element } from '../../shared/rf/design';
-import { impedancePath } from '../../shared/rf/path';
+import { impedancePath } from '../../shared/rf/impedance-path';
 import { designOf } from './helpers';
 
 const F0 = 2.44e9;
