@@ -5,7 +5,7 @@
 import { analyze } from '../../../../shared/rf/analyze';
 import type { Design } from '../../../../shared/rf/design';
 import { findMatches } from '../../../../shared/rf/match';
-import { impedancePath } from '../../../../shared/rf/path';
+import { impedancePath } from '../../../../shared/rf/impedance-path';
 import { refineDesignAsync } from '../../../../shared/rf/refine';
 import { yieldRun } from '../../../../shared/rf/yield';
 import type { AnalysisResult, ImpedancePath, MatchOptions, MatchResult, RefineResult, RefineTick, YieldResult } from './engine-types';

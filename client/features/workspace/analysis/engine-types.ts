@@ -10,7 +10,7 @@
  */
 export type { Complex, Design } from '../../../../shared/rf/design';
 export type { AnalysisResult, Stage } from '../../../../shared/rf/analyze';
-export type { ImpedancePath, PathSegment } from '../../../../shared/rf/path';
+export type { ImpedancePath, PathSegment } from '../../../../shared/rf/impedance-path';
 export type { MatchCandidate, MatchOptions, MatchResult } from '../../../../shared/rf/match';
 import type { RefineProgress } from '../../../../shared/rf/refine';
 export type { RefineOptions, RefineProgress, RefineResult } from '../../../../shared/rf/refine';
