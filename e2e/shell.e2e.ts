@@ -89,7 +89,11 @@ describe('client shell', () => {
     await page.getByRole('heading', { level: 1, name: roomName }).waitFor();
     const header = page.locator('header').filter({ has: page.getByRole('heading', { level: 1 }) });
     expect(await header.getByText('owner', { exact: true }).count()).toBe(1);
-    await page.locator(`[data-room-id="${roomId}"]`).waitFor();
+    // The workspace (lazily loaded) has replaced the frame's loading line.
+    const frame = page.getByTestId('room-workspace');
+    expect(await frame.getAttribute('data-room-id')).toBe(roomId);
+    await frame.locator(':scope > *').first().waitFor();
+    await frame.getByText('Loading the workspace…').waitFor({ state: 'detached' });
     await ownerSession.screenshot('03-room-owner');
 
     await page.getByRole('link', { name: 'Rooms', exact: true }).click();

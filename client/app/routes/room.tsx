@@ -29,9 +29,12 @@ export default function RoomRoute() {
           </Link>
         }
       />
-      <Suspense fallback={<Loading label="Opening the room…" />}>
-        <Workspace roomId={room.id} role={room.role} />
-      </Suspense>
+      {/* A plain frame, so tests can find the workspace whatever it draws inside. */}
+      <div data-testid="room-workspace" data-room-id={room.id}>
+        <Suspense fallback={<Loading label="Loading the workspace…" />}>
+          <Workspace roomId={room.id} role={room.role} />
+        </Suspense>
+      </div>
     </div>
   );
 }

@@ -1,24 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { api, parseResponse } from '../../../lib/api-client';
+import { dateFrom } from '../../../lib/format-time';
 import { queryKeys } from '../../../lib/query-keys';
 import { roomSummarySchema, type RoomSummary } from './room';
 
-const roomsResponseSchema = z.union([
-  z.array(roomSummarySchema),
-  z.object({ rooms: z.array(roomSummarySchema) }).transform((body) => body.rooms),
-]);
-
 /** `GET /api/rooms`: the rooms the signed-in user belongs to, most recently updated first. */
 export async function getRooms({ signal }: { signal?: AbortSignal } = {}): Promise<RoomSummary[]> {
-  const rooms = parseResponse(roomsResponseSchema)(await api.get('/api/rooms', { signal }));
-  return [...rooms].sort((a, b) => timeValue(b.updatedAt) - timeValue(a.updatedAt));
-}
-
-function timeValue(time: number | string | undefined): number {
-  if (time === undefined) return 0;
-  const value = typeof time === 'number' ? time : Date.parse(time);
-  return Number.isFinite(value) ? value : 0;
+  const rooms = parseResponse(z.array(roomSummarySchema))(await api.get('/api/rooms', { signal }));
+  const changed = (room: RoomSummary) => dateFrom(room.updatedAt)?.getTime() ?? 0;
+  return [...rooms].sort((a, b) => changed(b) - changed(a));
 }
 
 export const roomsQueryOptions = () =>
