@@ -111,6 +111,51 @@ export function twoPortAbcd(e: Extract<Element, { kind: 'two-port' }>, freqs: Fl
   return abcd;
 }
 
+const UNIT: Record<string, string> = { l: 'henries', c: 'farads', r: 'ohms' };
+
+/**
+ * The numeric checks of the design schema, repeated cheaply for chains built in code (refine,
+ * yield, the match finder), so a negative or non-finite value is a DesignError, never NaN.
+ */
+function elementCheck(e: Element, path: string): void {
+  const bad = (field: string, reason: string) => {
+    throw new DesignError(`${path}.${field}`, reason);
+  };
+  const positive = (v: unknown) => typeof v === 'number' && Number.isFinite(v) && v > 0;
+  const nonNegative = (v: unknown) => typeof v === 'number' && Number.isFinite(v) && v >= 0;
+  switch (e.kind) {
+    case 'series-l':
+    case 'series-c':
+    case 'series-r':
+    case 'shunt-l':
+    case 'shunt-c':
+    case 'shunt-r':
+      if (!positive(e.value)) bad('value', `must be a positive number of ${UNIT[e.kind.slice(-1)]}`);
+      if (e.q !== undefined && !positive(e.q)) bad('q', 'must be a positive number of (quality factor)');
+      return;
+    case 'line':
+    case 'open-stub':
+    case 'short-stub': {
+      if (!positive(e.z0)) bad('z0', 'must be a positive number of ohms');
+      if (e.lossDbPerM !== undefined && !nonNegative(e.lossDbPerM)) bad('lossDbPerM', 'must be zero or a positive number of dB per metre');
+      const len = e.length as Record<string, unknown>;
+      if ('degrees' in len) {
+        if (!nonNegative(len.degrees)) bad('length.degrees', 'must be zero or a positive number of degrees');
+        if (!positive(len.atHz)) bad('length.atHz', 'must be a positive number of hertz');
+      } else {
+        if (!nonNegative(len.meters)) bad('length.meters', 'must be zero or a positive number of metres');
+        if (!positive(len.velocityFactor) || (len.velocityFactor as number) > 1) bad('length.velocityFactor', 'must be a velocity factor, 0 < v ≤ 1');
+      }
+      return;
+    }
+    case 'transformer':
+      if (!positive(e.ratio)) bad('ratio', 'must be a positive number of (turns ratio)');
+      return;
+    case 'two-port':
+      return;
+  }
+}
+
 /** Compile a chain (load -> port) for the grid `freqs`. `pathOf(i)` names element i in errors. */
 export function chainPlan(
   elements: readonly Element[],
@@ -126,6 +171,7 @@ export function chainPlan(
     const code = KIND_CODE[e.kind];
     if (code === undefined) throw new DesignError(`${pathOf(i)}.kind`, `unknown kind ${JSON.stringify((e as { kind: unknown }).kind)}`);
     kinds[i] = code;
+    elementCheck(e, pathOf(i));
     const o = 4 * i;
     switch (e.kind) {
       case 'series-l':

@@ -18,3 +18,5 @@ export * from './result';
 export * from './touchstone';
 export * from './units';
 export * from './impedance-path';
+export * from './eseries';
+export * from './microstrip';

@@ -276,3 +276,22 @@ describe('resultToJson', () => {
     expectCleanJson(j);
   });
 });
+
+describe('checks on chains built in code', () => {
+  it('chainZin refuses a negative or non-finite value with a DesignError naming the element (never NaN)', () => {
+    const d = designOf({});
+    const ctx = sweepContext(d);
+    expect(() => chainZin(ctx, [{ id: 'a', kind: 'series-l', value: 1e-9 }, { id: 'b', kind: 'shunt-c', value: -1e-12 }])).toThrow(
+      /^elements\[1\]\.value: must be a positive number of farads/,
+    );
+    expect(() => chainZin(ctx, [{ id: 'a', kind: 'line', z0: 50, length: { degrees: NaN, atHz: 1e9 } }])).toThrow(/^elements\[0\]\.length\.degrees: /);
+    expect(() => chainZin(ctx, [{ id: 't', kind: 'transformer', ratio: 0 }])).toThrow(/^elements\[0\]\.ratio: /);
+  });
+
+  it('a measured two-port that does not cover the sweep is a DesignError at elements[i].touchstone naming the range', () => {
+    const s2p = '# Hz S RI R 50\n2.1e9 0.1 0 0.9 0 0.9 0 0.1 0\n2.9e9 0.1 0 0.9 0 0.9 0 0.1 0\n';
+    expect(() => analyze(designOf({ elements: [{ id: 'tp', kind: 'two-port', touchstone: s2p }] }))).toThrow(
+      /^elements\[0\]\.touchstone: .*outside the measured range/,
+    );
+  });
+});
