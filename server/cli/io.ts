@@ -8,14 +8,18 @@ import { DesignError, parseDesignText, type Design } from '../../shared/rf/desig
 
 const USAGE = 'usage: npm run --silent <command> -- <design.matchloom.json | -> [options]';
 
-/** The design argument: the first argument that is "-" or not an option (nor the value of a preceding `--name`). */
+/**
+ * The design argument: the first argument that is "-" or not an option, skipping the value that
+ * follows a `--name` written without "=" (so `--trials 2000 design.json` works). Put the path first,
+ * or write flags as `--name=value`, when a flag takes no value.
+ */
 export function designArg(argv: readonly string[]): string | undefined {
   for (let k = 0; k < argv.length; k++) {
     const a = argv[k];
     if (a === '-') return a;
     if (a === '--') continue;
     if (a.startsWith('--')) {
-      if (!a.includes('=') && k + 1 < argv.length && !argv[k + 1].startsWith('-') && k > 0) k++;
+      if (!a.includes('=') && k + 1 < argv.length && !argv[k + 1].startsWith('-')) k++;
       continue;
     }
     return a;

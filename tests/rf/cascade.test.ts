@@ -232,3 +232,23 @@ describe('gammaFromZin', () => {
     }
   });
 });
+
+describe('chainZin on a long uniform grid', () => {
+  it('the angle-addition shortcut on uniform grids matches direct evaluation point by point (long, lossy and lossless lines)', () => {
+    const elements: Element[] = [
+      { id: 'a', kind: 'line', z0: 70, length: { degrees: 2000, atHz: 1e9 } },
+      { id: 'b', kind: 'open-stub', z0: 40, length: { meters: 0.9, velocityFactor: 0.66 }, lossDbPerM: 0.5 },
+      { id: 'c', kind: 'short-stub', z0: 90, length: { degrees: 777, atHz: 1e9 } },
+      { id: 'd', kind: 'line', z0: 35, length: { meters: 1.3, velocityFactor: 0.8 }, lossDbPerM: 1 },
+    ];
+    const d = designOf({ load: { kind: 'impedance', ohms: [30, 20] }, sweep: { startHz: 0.5e9, stopHz: 3e9, points: 20001 }, elements });
+    const ctx = sweepContext(d);
+    const fast = chainZin(ctx, elements);
+    let worst = 0;
+    for (let i = 0; i < ctx.freqs.length; i += 97) {
+      const one = chainZin(sweepContext(d, Float64Array.of(ctx.freqs[i])), elements);
+      worst = Math.max(worst, Math.hypot(fast[2 * i] - one[0], fast[2 * i + 1] - one[1]) / Math.max(1, Math.hypot(one[0], one[1])));
+    }
+    expect(worst).toBeLessThan(1e-11);
+  });
+});
