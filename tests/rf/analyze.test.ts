@@ -170,6 +170,7 @@ describe('analyze(): edge loads never give NaN (engine conventions, README)', ()
     ['a pure reactance', { kind: 'impedance', ohms: [0, 50] }],
     ['a matched load', { kind: 'impedance', ohms: [50, 0] }],
     ['a near-open', { kind: 'impedance', ohms: [1e300, 0] }],
+    ['a measured open (Γ = 1 exactly)', { kind: 'measured', touchstone: '# Hz S RI R 50\n1e9 1 0\n5e9 1 0\n' }],
     ['a lossless parallel LC at resonance (an open)', { kind: 'rlc', topology: 'parallel', r: 1e308, l: 1e-9, c: 1 / ((2 * Math.PI * F0) ** 2 * 1e-9) }],
   ];
   for (const [name, load] of loads)
