@@ -96,7 +96,7 @@ describe('element labels', () => {
   });
   it('describe an element for lists and screen readers', () => {
     expect(elementDescription({ id: 'C1', kind: 'shunt-c', value: 1.2e-12, q: 40, tolerance: { relative: 0.05 }, locked: true })).toBe(
-      'C1, shunt c, 1.2 pF, Q 40, ±5 %, locked',
+      'C1, shunt C, 1.2 pF, Q 40, ±5 %, locked',
     );
   });
 });

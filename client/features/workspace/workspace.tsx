@@ -5,7 +5,7 @@
  * room. Everything is derived from the room's shared document, so every collaborator's edit shows
  * at once; an observer sees it all live with no editing control.
  */
-import { useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { presenceColour } from '../../../shared/collab/presence';
 import type { ViewState } from '../../../shared/collab/events';
@@ -56,7 +56,7 @@ export interface WorkspaceProps {
 
 type TabKey = 'element' | 'load' | 'band' | 'figures' | 'finder' | 'refine' | 'yield' | 'room';
 
-const PALETTE_HEIGHT = 34;
+const PALETTE_HEIGHT = 30;
 
 /** Keys typed into a field keep their own undo; the room's undo is for everywhere else. */
 function isTextEntry(target: EventTarget | null): boolean {
@@ -92,7 +92,8 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   const [plotMode, setPlotMode] = useState<SweepPlotMode>('return-loss');
   const [following, setFollowing] = useState<string | null>(null);
   const [sideWidth, setSideWidth] = useState(400);
-  const [chainHeight, setChainHeight] = useState(CANVAS_HEIGHT + PALETTE_HEIGHT + 8);
+  const [chainHeightSet, setChainHeight] = useState<number | null>(null);
+  const chainHeight = chainHeightSet ?? CANVAS_HEIGHT + 8 + (editable ? PALETTE_HEIGHT : 0);
   const [notice, setNotice] = useState<string | null>(null);
   const seriesId = useId();
 
@@ -236,6 +237,83 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
     { key: 'room', label: 'Room', badge: others.length ? String(others.length) : null },
   ];
 
+  const waiting = <p className="text-sm text-ink-faint">{room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}</p>;
+  const panels: Record<TabKey, ReactNode> = !design
+    ? { element: waiting, load: waiting, band: waiting, figures: waiting, finder: waiting, refine: waiting, yield: waiting, room: waiting }
+    : {
+        element: (
+          <div className="flex flex-col gap-4">
+            {selectedElement ? (
+              <ElementInspector design={design} element={selectedElement} editable={editable} series={series} actions={elementActions} />
+            ) : (
+              <p className="text-sm text-ink-soft">
+                {design.elements.length
+                  ? 'Select an element on the chain canvas or in the list below.'
+                  : editable
+                    ? 'No network yet. Add parts from the palette under the chart, or let the match finder propose one.'
+                    : 'No network yet.'}
+              </p>
+            )}
+            <ChainList design={design} selectedId={selectedId} onSelect={selectByUser} />
+            {editable && design.elements.length === 0 && (
+              <button type="button" className={smallButton('primary')} onClick={() => setTab('finder')}>
+                Open the match finder
+              </button>
+            )}
+          </div>
+        ),
+        load: <LoadForm design={design} editable={editable} onApply={edits.applyPatch} />,
+        band: (
+          <div className="flex flex-col gap-5">
+            <BandForm design={design} editable={editable} onApply={edits.applyPatch} />
+            <PortForm design={design} editable={editable} onApply={edits.applyPatch} />
+          </div>
+        ),
+        figures: <FiguresPanel design={design} result={analysis.result} error={analysis.error} />,
+        finder: (
+          <MatchFinderPanel
+            design={design}
+            editable={editable}
+            active={tab === 'finder'}
+            client={client}
+            onPreview={setPreview}
+            onApply={(elements, what) => {
+              edits.replaceChain(elements);
+              setSelected(null);
+              say(`Applied ${what}. Ctrl+Z takes it back.`);
+            }}
+          />
+        ),
+        refine: (
+          <RefinePanel
+            design={design}
+            editable={editable}
+            client={client}
+            onApply={(changes) => {
+              edits.applyChanges(changes);
+              say('Applied the refined values. Ctrl+Z takes them back.');
+            }}
+          />
+        ),
+        yield: <YieldPanel design={design} client={client} onEnvelope={setEnvelope} />,
+        room: (
+          <div className="flex flex-col gap-4">
+            <section aria-labelledby="presence-title">
+              <h3 id="presence-title" className="mb-1.5 text-sm font-bold text-ink">
+                Presence
+              </h3>
+              <PresenceList rows={rows} followingId={following} onFollow={setFollowing} elementName={nameOfElement} />
+            </section>
+            <section aria-labelledby="log-title">
+              <h3 id="log-title" className="mb-1.5 text-sm font-bold text-ink">
+                Room log
+              </h3>
+              <RoomLog entries={events.log} />
+            </section>
+          </div>
+        ),
+      };
+
   return (
     <div
       ref={root}
@@ -263,6 +341,7 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
             </button>
           </span>
         )}
+        {editable && <StepSeriesSelect id={seriesId} value={series} onChange={setSeries} />}
         <span className="min-w-0 flex-1" aria-live="polite">
           {notice && <span className="text-xs text-teal-deep">{notice}</span>}
         </span>
@@ -368,12 +447,7 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
             inverted
           />
           <section aria-label="Chain canvas" className="flex shrink-0 flex-col gap-1" style={{ height: chainHeight }}>
-            {editable ? (
-              <div className="flex flex-wrap items-center justify-between gap-2" style={{ minHeight: PALETTE_HEIGHT - 6 }}>
-                <ElementPalette onAdd={addElement} />
-                <StepSeriesSelect id={seriesId} value={series} onChange={setSeries} />
-              </div>
-            ) : null}
+            {editable && <ElementPalette onAdd={addElement} />}
             <div ref={chainBox} className="min-h-0 flex-1 rounded-md border border-rule bg-card">
               {design && (
                 <ChainCanvas
@@ -399,79 +473,7 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
 
         {/* side panel */}
         <aside aria-label="Side panel" className="flex shrink-0 flex-col border-l border-rule bg-paper/40" style={{ width: sideWidth }}>
-          <SideTabs<TabKey> tabs={tabs} active={tab} onChange={setTab} label="Side panel">
-            {!design ? (
-              <p className="text-sm text-ink-faint">{room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}</p>
-            ) : tab === 'element' ? (
-              <div className="flex flex-col gap-4">
-                {selectedElement ? (
-                  <ElementInspector design={design} element={selectedElement} editable={editable} series={series} actions={elementActions} />
-                ) : (
-                  <p className="text-sm text-ink-soft">
-                    {design.elements.length
-                      ? 'Select an element on the chain canvas or in the list below.'
-                      : editable
-                        ? 'No network yet. Add parts from the palette under the chart, or let the match finder propose one.'
-                        : 'No network yet.'}
-                  </p>
-                )}
-                <ChainList design={design} selectedId={selectedId} onSelect={selectByUser} />
-                {editable && design.elements.length === 0 && (
-                  <button type="button" className={smallButton('primary')} onClick={() => setTab('finder')}>
-                    Open the match finder
-                  </button>
-                )}
-              </div>
-            ) : tab === 'load' ? (
-              <LoadForm design={design} editable={editable} onApply={edits.applyPatch} />
-            ) : tab === 'band' ? (
-              <div className="flex flex-col gap-5">
-                <BandForm design={design} editable={editable} onApply={edits.applyPatch} />
-                <PortForm design={design} editable={editable} onApply={edits.applyPatch} />
-              </div>
-            ) : tab === 'figures' ? (
-              <FiguresPanel design={design} result={analysis.result} error={analysis.error} />
-            ) : tab === 'finder' ? (
-              <MatchFinderPanel
-                design={design}
-                editable={editable}
-                client={client}
-                onPreview={setPreview}
-                onApply={(elements, what) => {
-                  edits.replaceChain(elements);
-                  setSelected(null);
-                  say(`Applied ${what}. Ctrl+Z takes it back.`);
-                }}
-              />
-            ) : tab === 'refine' ? (
-              <RefinePanel
-                design={design}
-                editable={editable}
-                client={client}
-                onApply={(changes) => {
-                  edits.applyChanges(changes);
-                  say('Applied the refined values. Ctrl+Z takes them back.');
-                }}
-              />
-            ) : tab === 'yield' ? (
-              <YieldPanel design={design} client={client} onEnvelope={setEnvelope} />
-            ) : (
-              <div className="flex flex-col gap-4">
-                <section aria-labelledby="presence-title">
-                  <h3 id="presence-title" className="mb-1.5 text-sm font-bold text-ink">
-                    Presence
-                  </h3>
-                  <PresenceList rows={rows} followingId={following} onFollow={setFollowing} elementName={nameOfElement} />
-                </section>
-                <section aria-labelledby="log-title">
-                  <h3 id="log-title" className="mb-1.5 text-sm font-bold text-ink">
-                    Room log
-                  </h3>
-                  <RoomLog entries={events.log} />
-                </section>
-              </div>
-            )}
-          </SideTabs>
+          <SideTabs<TabKey> tabs={tabs} active={tab} onChange={setTab} label="Side panel" panels={panels} />
           {lostAccess && (
             <p className="border-t border-rule p-2 text-xs">
               <Link to={paths.rooms.getHref()} className="font-semibold underline">

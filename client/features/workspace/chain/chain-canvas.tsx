@@ -171,10 +171,12 @@ export function ChainCanvas(props: ChainCanvasProps) {
             <>
               <Line points={[PORT_WIDTH - 20, RAIL_Y, layout.loadX + 20, RAIL_Y]} stroke={INK} strokeWidth={2} listening={false} />
               <Text
-                x={PORT_WIDTH + 4}
-                y={RAIL_Y + 26}
-                width={Math.max(120, layout.loadX - PORT_WIDTH - 8)}
-                text="No network yet"
+                x={PORT_WIDTH}
+                y={RAIL_Y + 30}
+                width={layout.loadX - PORT_WIDTH}
+                align="center"
+                text={editable ? 'No network yet:\nadd parts above' : 'No network yet'}
+                lineHeight={1.4}
                 fontSize={12}
                 fill={FAINT}
                 listening={false}

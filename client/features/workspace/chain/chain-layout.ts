@@ -10,6 +10,8 @@ export const LOAD_WIDTH = 112;
 export const RAIL_Y = 64;
 export const GROUND_Y = 150;
 export const CANVAS_HEIGHT = 176;
+/** room left between port and load while the chain is empty, for the "no network" note */
+export const EMPTY_GAP = 180;
 
 export interface ChainLayout {
   width: number;
@@ -22,7 +24,7 @@ export interface ChainLayout {
 
 export function chainLayout(count: number): ChainLayout {
   const n = Math.max(0, count);
-  const loadX = PORT_WIDTH + n * CELL_WIDTH;
+  const loadX = PORT_WIDTH + (n === 0 ? EMPTY_GAP : n * CELL_WIDTH);
   return {
     width: loadX + LOAD_WIDTH,
     height: CANVAS_HEIGHT,

@@ -6,7 +6,7 @@
 import type { ElementKind } from '../../../../shared/rf/design';
 import { elementIdPrefix } from '../../../../shared/rf/match-ids';
 
-/** The next free id for `kind` given the ids already in the document. */
+/** The next free id for `kind` given the ids (and labels) already in the document. */
 export function allocateElementId(kind: ElementKind, existingIds: Iterable<string>): string {
   const prefix = elementIdPrefix(kind);
   const taken = new Set(existingIds);

@@ -39,7 +39,7 @@ export function elementDescription(e: Element): string {
   if ('q' in e && e.q !== undefined) extras.push(`Q ${formatValueText(e.q, '', 3)}`);
   if (e.tolerance) extras.push(toleranceText(e));
   if (e.locked) extras.push('locked');
-  return [elementName(e), info.name.toLowerCase(), elementValueLabel(e), ...extras].join(', ');
+  return [elementName(e), info.name.charAt(0).toLowerCase() + info.name.slice(1), elementValueLabel(e), ...extras].join(', ');
 }
 
 export function toleranceText(e: Element): string {

@@ -50,6 +50,11 @@ export function patchedDesign(doc: Y.Doc, patch: DesignPatch): { ok: true; desig
   return checked.ok ? { ok: true, design: checked.design } : { ok: false, message: checked.error.message };
 }
 
+/** Ids and labels in use: a new id must not read like another element's name either. */
+function takenNames(elements: readonly Element[]): string[] {
+  return elements.flatMap((e) => (e.label ? [e.id, e.label] : [e.id]));
+}
+
 export function useDesignEdits(doc: Y.Doc | null, editor: LocalEditor | null, editable: boolean): DesignEdits {
   return useMemo(() => {
     const can = (): [Y.Doc, LocalEditor] | null => (doc && editor && editable ? [doc, editor] : null);
@@ -60,7 +65,7 @@ export function useDesignEdits(doc: Y.Doc | null, editor: LocalEditor | null, ed
         const [d, ed] = ok;
         const current = safeParseDesign(readDesignInput(d));
         if (!current.ok) return null;
-        const id = allocateElementId(kind, orderedElementIds(d));
+        const id = allocateElementId(kind, takenNames(current.design.elements));
         ed.edit((o) => insertElement(d, defaultElement(kind, id, current.design), index, o));
         return id;
       },
@@ -75,7 +80,8 @@ export function useDesignEdits(doc: Y.Doc | null, editor: LocalEditor | null, ed
         const fields = readElement(d, id);
         if (!fields) return null;
         const ids = orderedElementIds(d);
-        const copyId = allocateElementId(fields.kind as ElementKind, ids);
+        const taken = ids.flatMap((i) => [i, String(readElement(d, i)?.label ?? '')]);
+        const copyId = allocateElementId(fields.kind as ElementKind, taken);
         const copy = { ...fields, id: copyId, label: undefined } as Element;
         ed.edit((o) => insertElement(d, copy, ids.indexOf(id) + 1, o));
         return copyId;

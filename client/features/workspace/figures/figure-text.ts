@@ -135,7 +135,7 @@ export function limitGaugeFigure(
   const ratio = bandwidth && finite(limit.ratio) ? limit.ratio : 0;
   return {
     fill: Math.max(0, Math.min(1, ratio)),
-    ratio: percentText(ratio, 2),
+    ratio: bandwidth ? percentText(ratio, 2) : '—',
     bound: percentText(limit.maxFractional),
     design: bandwidth ? percentText(bandwidth.fractional) : 'no match',
     model: MODEL_WORDS[limit.model] ?? limit.model,

@@ -157,7 +157,7 @@ export function FiguresSummary({ design, result, pending }: { design: Design; re
         <dt className="font-semibold text-ink-soft">Bandwidth</dt>
         <dd className="numeric font-bold text-ink">{bw ? `${bw.width} (${bw.fractional})` : 'no match'}</dd>
       </div>
-      <div className="flex items-baseline gap-1.5">
+      <div className="flex items-baseline gap-1.5" data-testid="summary-goal">
         <dt className="font-semibold text-ink-soft">Goal</dt>
         <dd className="numeric text-ink">{goalText(design.goal)}</dd>
       </div>

@@ -1,4 +1,8 @@
-/** The side panel's tabs: an ARIA tab list (arrow keys move between tabs) over one panel at a time. */
+/**
+ * The side panel's tabs: an ARIA tab list (arrow keys move between tabs) over one panel at a time.
+ * Inactive panels stay mounted but hidden, so a search, a run in progress or an unapplied form
+ * survives a look at another tab.
+ */
 import { useId, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import { cx } from '../../../lib/cx';
 
@@ -13,11 +17,11 @@ export interface SideTabsProps<K extends string> {
   tabs: readonly SideTab<K>[];
   active: K;
   onChange(key: K): void;
-  children: ReactNode;
+  panels: Record<K, ReactNode>;
   label: string;
 }
 
-export function SideTabs<K extends string>({ tabs, active, onChange, children, label }: SideTabsProps<K>) {
+export function SideTabs<K extends string>({ tabs, active, onChange, panels, label }: SideTabsProps<K>) {
   const base = useId();
   const refs = useRef<Record<string, HTMLButtonElement | null>>({});
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
@@ -47,7 +51,7 @@ export function SideTabs<K extends string>({ tabs, active, onChange, children, l
               role="tab"
               id={`${base}-tab-${t.key}`}
               aria-selected={selected}
-              aria-controls={`${base}-panel`}
+              aria-controls={`${base}-panel-${t.key}`}
               tabIndex={selected ? 0 : -1}
               onClick={() => onChange(t.key)}
               className={cx(
@@ -61,15 +65,19 @@ export function SideTabs<K extends string>({ tabs, active, onChange, children, l
           );
         })}
       </div>
-      <div
-        role="tabpanel"
-        id={`${base}-panel`}
-        aria-labelledby={`${base}-tab-${active}`}
-        tabIndex={0}
-        className="min-h-0 flex-1 overflow-y-auto px-3 py-3 focus-visible:outline-offset-[-3px]"
-      >
-        {children}
-      </div>
+      {tabs.map((t) => (
+        <div
+          key={t.key}
+          role="tabpanel"
+          id={`${base}-panel-${t.key}`}
+          aria-labelledby={`${base}-tab-${t.key}`}
+          hidden={t.key !== active}
+          tabIndex={0}
+          className="min-h-0 flex-1 overflow-y-auto px-3 py-3 focus-visible:outline-offset-[-3px]"
+        >
+          {panels[t.key]}
+        </div>
+      ))}
     </div>
   );
 }

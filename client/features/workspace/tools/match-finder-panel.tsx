@@ -20,6 +20,8 @@ export interface ChainPreview {
 export interface MatchFinderPanelProps {
   design: Design;
   editable: boolean;
+  /** the panel is in view; leaving it clears the preview */
+  active: boolean;
   client: EngineClient;
   onPreview(preview: ChainPreview | null): void;
   onApply(elements: Element[], what: string): void;
@@ -39,7 +41,7 @@ interface Analysed {
   preview: ChainPreview | null;
 }
 
-export function MatchFinderPanel({ design, editable, client, onPreview, onApply }: MatchFinderPanelProps) {
+export function MatchFinderPanel({ design, editable, active, client, onPreview, onApply }: MatchFinderPanelProps) {
   const [found, setFound] = useState<{ key: string; result: MatchResult } | null>(null);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -95,7 +97,11 @@ export function MatchFinderPanel({ design, editable, client, onPreview, onApply 
   const show = (id: string | null) => onPreview(id ? (analysed[id]?.preview ?? null) : null);
   const hover = (id: string) => show(id);
   const unhover = () => show(pinned);
-  // Leaving the panel (another tab) clears the preview.
+  // Leaving the panel (another tab) clears the preview; coming back shows the pinned one again.
+  useEffect(() => {
+    if (!active) onPreview(null);
+    else if (pinned) onPreview(analysed[pinned]?.preview ?? null);
+  }, [active]);
   useEffect(() => () => onPreview(null), [onPreview]);
 
   const candidates = found?.result.candidates ?? [];

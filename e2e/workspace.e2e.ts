@@ -1,0 +1,195 @@
+/**
+ * The room workspace end to end, as a new user meets it: the demo tuner signs in, opens the 2.4 GHz
+ * chip-antenna room and sees the mismatch; the match finder proposes networks (a hover previews one);
+ * the tuner builds the L-section it proposes from the palette, typing values in engineering notation,
+ * tunes it from the keyboard, and watches the band trace come inside the goal and the bandwidth figure
+ * appear; a finder candidate applied in one edit is taken back with Ctrl+Z. Screenshots go to
+ * e2e/screenshots/ (workspace-*.png) at a 1366×768 laptop size.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CHIP_ANTENNA_ROOM, DEMO_PASSWORD } from '../shared/demo/designs';
+import { signIn } from './support/auth';
+import { launchBrowser, openSession, type BrowserSession } from './support/browser';
+import { startTestServer, type TestServer } from './support/server';
+
+let server: TestServer;
+let browser: Browser;
+let tuner: BrowserSession;
+
+beforeAll(async () => {
+  server = await startTestServer({ seedDemo: true });
+  browser = await launchBrowser();
+  tuner = await openSession(browser, server.url, { viewport: { width: 1366, height: 768 } });
+});
+
+afterAll(async () => {
+  await tuner?.close();
+  await browser?.close();
+  await server?.close();
+});
+
+const workspace = (page: Page) => page.getByTestId('workspace');
+const summaryWorst = (page: Page) => page.getByTestId('summary-worst');
+const summaryBandwidth = (page: Page) => page.getByTestId('summary-bandwidth');
+const inspector = (page: Page) => page.getByTestId('element-inspector');
+const chainList = (page: Page) => page.getByTestId('chain-list');
+
+async function openTab(page: Page, name: string) {
+  await page.getByRole('tab', { name, exact: true }).click();
+}
+
+/** Types a value into a labelled field of the element inspector and commits it with Enter. */
+async function typeValue(page: Page, label: string, text: string) {
+  const field = inspector(page).getByLabel(label, { exact: true });
+  await field.fill(text);
+  await field.press('Enter');
+}
+
+describe('room workspace', () => {
+  it('opens the demo room and shows the mismatch', async () => {
+    const { page } = tuner;
+    await signIn(page, 'tuner@demo.test', DEMO_PASSWORD);
+    await page.getByRole('link', { name: CHIP_ANTENNA_ROOM }).click();
+    await workspace(page).waitFor();
+    await page.locator('[data-testid="workspace"][data-synced="true"]').waitFor();
+    await summaryWorst(page).getByText('outside goal').waitFor();
+    await summaryBandwidth(page).getByText('no match').waitFor();
+    await page.getByTestId('connection-status').getByText('Live').waitFor();
+    // A tuner gets the palette and the undo buttons.
+    await page.getByRole('toolbar', { name: 'Add an element' }).waitFor();
+    await page.getByRole('button', { name: 'Undo', exact: true }).waitFor();
+    // Nothing on screen reads NaN or Infinity.
+    expect(await workspace(page).innerText()).not.toMatch(/NaN|Infinity/);
+    await tuner.screenshot('workspace-01-mismatch');
+    tuner.assertClean();
+  });
+
+  it('lists match-finder candidates with their figures and previews one on hover', async () => {
+    const { page } = tuner;
+    await openTab(page, 'Match finder');
+    await page.getByRole('button', { name: 'Find matches' }).click();
+    const lsection = page.getByTestId('match-candidate').filter({ hasText: 'L-section: series L, shunt C' });
+    await lsection.waitFor();
+    await lsection.getByText(/bandwidth \d/).first().waitFor();
+    await lsection.getByText('meets the goal').first().waitFor();
+    // E-series alternatives are offered beside the exact values.
+    await lsection.getByRole('button', { name: /with E12 values/ }).waitFor();
+    await lsection.hover();
+    await lsection.getByRole('button', { name: 'Preview' }).click();
+    await lsection.getByRole('button', { name: 'Previewing' }).waitFor();
+    await tuner.screenshot('workspace-02-finder-preview');
+    // A preview changes nothing in the room.
+    await summaryWorst(page).getByText('outside goal').waitFor();
+    tuner.assertClean();
+  });
+
+  it('builds the L-section from the palette, typing values with units, and the band trace comes inside the goal', async () => {
+    const { page } = tuner;
+    const palette = page.getByRole('toolbar', { name: 'Add an element' });
+
+    // From the load outward: series L first, then the shunt C on its port side.
+    await palette.getByRole('button', { name: 'Add series l' }).click();
+    await inspector(page).getByRole('heading', { name: /L1/ }).waitFor();
+    await typeValue(page, 'Value (H)', '0.93n');
+    await expect.poll(() => inspector(page).getByLabel('Value (H)', { exact: true }).inputValue()).toBe('930 pH');
+
+    // A value in the wrong unit is refused beside the field, and nothing is written.
+    await typeValue(page, 'Value (H)', '1.7 pF');
+    await inspector(page).getByRole('alert').getByText(/farads.*expected henries/).waitFor();
+    await inspector(page).getByLabel('Value (H)', { exact: true }).press('Escape');
+    await expect.poll(() => inspector(page).getByLabel('Value (H)', { exact: true }).inputValue()).toBe('930 pH');
+
+    await palette.getByRole('button', { name: 'Add shunt c' }).click();
+    await inspector(page).getByRole('heading', { name: /C1/ }).waitFor();
+    await typeValue(page, 'Value (F)', '1.74 pF');
+
+    // The chain reads port -> load: C1 then L1.
+    await expect.poll(() => chainList(page).getByRole('button').allInnerTexts()).toEqual(['C1, shunt C, 1.74 pF', 'L1, series L, 930 pH']);
+    await summaryWorst(page).getByText('in goal').waitFor();
+    await summaryBandwidth(page).getByText(/MHz \(\d/).waitFor();
+
+    await openTab(page, 'Figures');
+    await page.getByTestId('figure-worst').getByText('meets the goal').waitFor();
+    await page.getByTestId('figure-bandwidth').getByText('covers the band').waitFor();
+    // The demo drives 100 mW: each part's stress is shown with the cautions beside it.
+    await page.getByRole('table').getByRole('rowheader', { name: 'C1' }).waitFor();
+    await page.getByRole('complementary', { name: 'Cautions for transmitting designs' }).getByText(/RF exposure limits/).waitFor();
+    expect(await workspace(page).innerText()).not.toMatch(/NaN|Infinity/);
+    await tuner.screenshot('workspace-03-lsection-in-goal');
+    tuner.assertClean();
+  });
+
+  it('tunes the selected value from the keyboard: log steps, Shift coarse, E-series steps', async () => {
+    const { page } = tuner;
+    await openTab(page, 'Element');
+    await chainList(page).getByRole('button', { name: /^C1,/ }).click();
+    const field = inspector(page).getByLabel('Value (F)', { exact: true });
+    await field.focus();
+    await field.press('ArrowUp'); // +2 %
+    await expect.poll(() => field.inputValue()).toBe('1.775 pF');
+    await field.press('Shift+ArrowDown'); // -10 % (log scale: ×1/1.1)
+    await expect.poll(() => field.inputValue()).toBe('1.614 pF');
+    await page.getByLabel('Tuning steps').selectOption('E24');
+    await field.focus();
+    await field.press('ArrowUp'); // next E24 value above 1.614 pF
+    await expect.poll(() => field.inputValue()).toBe('1.8 pF');
+
+    // The chain canvas tunes the selected element with the arrow keys too.
+    const canvas = page.getByRole('group', { name: /^Chain, port on the left/ });
+    await canvas.focus();
+    await page.keyboard.press('ArrowDown');
+    await expect.poll(() => field.inputValue()).toBe('1.6 pF');
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(() => field.inputValue()).toBe('1.8 pF');
+    await summaryWorst(page).getByText('in goal').waitFor();
+    tuner.assertClean();
+  });
+
+  it('applies a finder candidate in one edit that Ctrl+Z takes back', async () => {
+    const { page } = tuner;
+    await openTab(page, 'Match finder');
+    const pi = page.getByTestId('match-candidate').filter({ hasText: 'Pi network, Q = 2: shunt C, series L, shunt C' });
+    await pi.getByRole('button', { name: /^Apply Pi network/ }).click();
+    await page.getByText(/Applied Pi network/).waitFor();
+    await openTab(page, 'Element');
+    await expect.poll(() => chainList(page).getByRole('button').count()).toBe(3);
+    await tuner.screenshot('workspace-04-pi-applied');
+
+    // Undo from anywhere outside a text field takes the whole chain replacement back.
+    await page.getByRole('heading', { level: 1 }).click();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => chainList(page).getByRole('button').allInnerTexts()).toEqual(['C1, shunt C, 1.8 pF', 'L1, series L, 930 pH']);
+    await page.keyboard.press('Control+Shift+z');
+    await expect.poll(() => chainList(page).getByRole('button').count()).toBe(3);
+    await page.getByRole('button', { name: 'Undo', exact: true }).click();
+    await expect.poll(() => chainList(page).getByRole('button').count()).toBe(2);
+    await summaryWorst(page).getByText('in goal').waitFor();
+    tuner.assertClean();
+  });
+
+  it('edits the load and the band in forms with errors beside the fields', async () => {
+    const { page } = tuner;
+    await openTab(page, 'Band & port');
+    const band = page.getByRole('form', { name: 'Band, sweep and goal' });
+    const stop = band.getByLabel('Stop (Hz)').first();
+    await stop.fill('2.3 GHz');
+    await band.getByRole('button', { name: 'Apply' }).click();
+    await band.getByText('must not be below the band start').waitFor();
+    await band.getByRole('button', { name: 'Revert' }).click();
+    expect(await stop.inputValue()).toBe('2.4835 GHz');
+    await band.getByLabel('VSWR', { exact: true }).fill('1.5');
+    await band.getByRole('button', { name: 'Apply' }).click();
+    await page.getByTestId('summary-goal').getByText('VSWR ≤ 1.5').waitFor();
+
+    await openTab(page, 'Load');
+    const load = page.getByRole('form', { name: 'Load' });
+    expect(await load.getByLabel('Load model').inputValue()).toBe('rlc');
+    await load.getByLabel('L (H)').fill('3.9 nF');
+    await load.getByRole('button', { name: 'Apply load' }).click();
+    await load.getByText(/farads.*expected henries/).waitFor();
+    await load.getByRole('button', { name: 'Revert' }).click();
+    await tuner.screenshot('workspace-05-forms');
+    tuner.assertClean();
+  });
+});
