@@ -140,6 +140,22 @@ export function buildGridModel(opts: GridOptions): GridModel {
     }
   }
 
+  // Zoomed in, the rim and often the axis are out of view: label the major circles where they
+  // cross the canvas's top and left edges too (placeLabels drops any that collide).
+  if (zoom >= 2.5) {
+    for (const v of level.major) {
+      const r = toPixelCircle(constantRCircle(v), f, { stroke: '', width: 0, role: 'r', value: v });
+      const at = edgeCrossing(r, f, width, height);
+      if (at) labels.push({ text: gridValueText(v), x: at[0] + 3, y: at[1], colour: CHART_PALETTE.gridLabel, align: 'left', role: 'r' });
+      for (const sign of [1, -1]) {
+        const c = toPixelCircle(constantXCircle(sign * v), f, { stroke: '', width: 0, role: 'x', value: sign * v });
+        const p = edgeCrossing(c, f, width, height);
+        if (p)
+          labels.push({ text: `${sign < 0 ? '−' : '+'}j${gridValueText(v)}`, x: p[0] + 3, y: p[1], colour: CHART_PALETTE.gridLabel, align: 'left', role: 'x' });
+      }
+    }
+  }
+
   if (opts.showAdmittance) {
     for (const [values, major] of [
       [level.minor, false],
@@ -190,6 +206,27 @@ export function buildGridModel(opts: GridOptions): GridModel {
   const [ax1] = gammaToPixel([1, 0], f);
 
   return { frame: f, width, height, circles, axis: [ax0, ay, ax1, ay], labels: placeLabels(labels, width, height) };
+}
+
+/**
+ * Where a grid circle first meets the top edge (just inside it) or the left edge, inside the rim;
+ * null if it meets neither within the canvas.
+ */
+export function edgeCrossing(c: { x: number; y: number; r: number }, f: Frame, width: number, height: number): [number, number] | null {
+  const inside = (x: number, y: number) => Math.hypot(x - f.cx, y - f.cy) <= f.radius - 1 && x >= 0 && x <= width - 30 && y >= 0 && y <= height - 14;
+  const top = 6;
+  const dyTop = top - c.y;
+  if (Math.abs(dyTop) <= c.r) {
+    const dx = Math.sqrt(c.r * c.r - dyTop * dyTop);
+    for (const x of [c.x - dx, c.x + dx]) if (inside(x, top)) return [x, top];
+  }
+  const left = 4;
+  const dxLeft = left - c.x;
+  if (Math.abs(dxLeft) <= c.r) {
+    const dy = Math.sqrt(c.r * c.r - dxLeft * dxLeft);
+    for (const y of [c.y - dy, c.y + dy]) if (inside(left, y - 6)) return [left, y - 6];
+  }
+  return null;
 }
 
 /** Approximate width of a 10 px label (Nunito Sans averages a little over half the size per glyph). */

@@ -108,8 +108,7 @@ export function SmithChart(props: SmithChartProps) {
   useLayoutEffect(() => {
     const g = gridGroup.current;
     if (!g) return;
-    g.clearCache();
-    g.cache({ pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 });
+    cacheGrid(g, grid.width, grid.height);
     gridLayer.current?.batchDraw();
   }, [grid]);
   useEffect(() => {
@@ -117,8 +116,7 @@ export function SmithChart(props: SmithChartProps) {
     let live = true;
     void document.fonts.ready.then(() => {
       if (!live || !gridGroup.current) return;
-      gridGroup.current.clearCache();
-      gridGroup.current.cache({ pixelRatio: window.devicePixelRatio || 1 });
+      cacheGrid(gridGroup.current, latest.current.props.width, latest.current.props.height);
       gridLayer.current?.batchDraw();
     });
     return () => {
@@ -276,6 +274,12 @@ export function SmithChart(props: SmithChartProps) {
 }
 
 // ---- grid ----------------------------------------------------------------------------------
+
+/** Cache the grid as one bitmap of the canvas's own size (zoomed in, its circles reach far beyond it). */
+function cacheGrid(g: Konva.Group, width: number, height: number): void {
+  g.clearCache();
+  g.cache({ x: 0, y: 0, width, height, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 });
+}
 
 function GridShapes({ grid }: { grid: GridModel }) {
   const f = grid.frame;

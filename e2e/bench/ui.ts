@@ -1,0 +1,246 @@
+/**
+ * `npm run bench:ui`: how quickly the room screen redraws while a value is dragged.
+ *
+ * The real server (e2e/support/server.ts, fresh SQLite) serves the built client; Debian's Chromium
+ * opens the same room in two browser contexts: a tuner (A, the owner) and a collaborator (B, an
+ * observer). The room holds a 10-element chain with a 1,001-point sweep. A drags the value of one
+ * series inductor on the chain canvas upward, one pointer event per ~16 ms.
+ *
+ * Measured (target in brackets):
+ *   A: pointer event → A's Smith chart and sweep plot both redrawn with that value   (p95 < 16 ms)
+ *   B: A's pointer event → B's Smith chart redrawn with that value                    (p95 < 50 ms)
+ *
+ * How: the chart and the plot call `markDrawn` (client/features/workspace/analysis/draw-marks.ts)
+ * after each draw; with `window.__mlDrawn` defined that records { at, seq, probe }, where `at` is
+ * epoch milliseconds (performance.timeOrigin + performance.now(), comparable across the two
+ * contexts) and `probe` is `window.__mlProbe(design)` for the design the drawn result came from —
+ * here the dragged inductor's value. The pointer events' times are `performance.timeOrigin +
+ * event.timeStamp`. The value an event sets is computed exactly as the chain canvas does
+ * (stepValue/dragSteps from the start value), and the drag only ever raises it, so event i counts
+ * as drawn at the first draw (after the event) whose probe is at or above the value of event i.
+ *
+ * Options: --events N (default 240), --interval MS (default 16), --keep-screens (screenshots to
+ * e2e/screenshots/bench-ui-*.png). Prints a table; exits 0 whatever the numbers (targets are
+ * reported, not enforced).
+ */
+import { parseArgs } from 'node:util';
+import type { Page } from 'playwright-core';
+import { CELL_WIDTH, chainLayout } from '../../client/features/workspace/chain/chain-layout';
+import { dragSteps, stepValue } from '../../client/features/workspace/value/tuning-step';
+import { launchBrowser, openSession, type BrowserSession } from '../support/browser';
+import { newAccount, type Account } from '../support/auth';
+import { startTestServer } from '../support/server';
+
+const { values: args } = parseArgs({
+  options: {
+    events: { type: 'string', default: '240' },
+    interval: { type: 'string', default: '16' },
+    'keep-screens': { type: 'boolean', default: false },
+  },
+});
+const EVENTS = Math.max(10, Number(args.events));
+const INTERVAL = Math.max(0, Number(args.interval));
+
+const DRAGGED_ID = 'L4';
+const DRAGGED_INDEX = 8;
+const START_VALUE = 0.3e-9;
+const PIXELS_PER_EVENT = 1;
+
+/** The invented 2.4 GHz chip antenna with a deliberately long 10-element chain and a 1,001-point sweep. */
+function benchDesign() {
+  const deg = (d: number) => ({ degrees: d, atHz: 2.44e9 });
+  return {
+    format: 'matchloom-design',
+    version: 1,
+    name: 'UI bench: 10-element chain',
+    referenceOhms: 50,
+    load: { kind: 'rlc', topology: 'series', r: 12, l: 1.5e-9, c: 2e-12 },
+    band: { startHz: 2.4e9, stopHz: 2.4835e9, centerHz: 2.44e9 },
+    sweep: { startHz: 2.0e9, stopHz: 3.0e9, points: 1001, spacing: 'linear' },
+    goal: { maxVswr: 2 },
+    elements: [
+      { id: 'C1', kind: 'series-c', value: 5.6e-12 },
+      { id: 'L1', kind: 'shunt-l', value: 1.8e-9 },
+      { id: 'TL1', kind: 'line', z0: 50, length: deg(8) },
+      { id: 'L2', kind: 'series-l', value: 0.3e-9 },
+      { id: 'C2', kind: 'shunt-c', value: 0.15e-12 },
+      { id: 'ST1', kind: 'open-stub', z0: 50, length: deg(5) },
+      { id: 'L3', kind: 'series-l', value: 0.25e-9 },
+      { id: 'C3', kind: 'shunt-c', value: 0.1e-12 },
+      { id: DRAGGED_ID, kind: 'series-l', value: START_VALUE },
+      { id: 'C4', kind: 'shunt-c', value: 0.08e-12 },
+    ],
+  };
+}
+
+interface DrawRecord {
+  at: number;
+  seq: number;
+  probe: number | null;
+}
+interface PageLog {
+  input: { t: number }[];
+  chart: DrawRecord[];
+  plot: DrawRecord[];
+}
+
+/** Installed before any page script: the draw hooks and a log of pointer moves. */
+function installHooks(draggedId: string) {
+  const w = window as unknown as Record<string, unknown>;
+  const log: PageLog = { input: [], chart: [], plot: [] };
+  w.__benchLog = log;
+  w.__mlDrawn = {};
+  w.__mlProbe = (d: { elements: { id: string; value?: number }[] }) => d.elements.find((e) => e.id === draggedId)?.value ?? null;
+  w.__mlOnDrawn = (which: 'chart' | 'plot', rec: DrawRecord) => log[which].push(rec);
+  window.addEventListener('pointermove', (e) => log.input.push({ t: performance.timeOrigin + e.timeStamp }), { capture: true });
+}
+
+async function signUpByApi(session: BrowserSession, account: Account) {
+  const res = await session.context.request.post('/api/auth/signup', {
+    data: { email: account.email, password: account.password, displayName: account.displayName },
+  });
+  if (!res.ok()) throw new Error(`sign-up failed: ${res.status()} ${await res.text()}`);
+}
+
+async function waitForDraws(page: Page, label: string) {
+  await page.waitForFunction(
+    () => {
+      const log = (window as unknown as { __benchLog: PageLog }).__benchLog;
+      return log.chart.length > 0 && log.chart[log.chart.length - 1].probe !== null;
+    },
+    undefined,
+    { timeout: 60_000 },
+  );
+  // let the first-load work (fonts, grid cache, worker start) settle
+  await page.waitForTimeout(1500);
+  console.log(`  ${label}: chart drawn`);
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (!sorted.length) return Number.NaN;
+  const h = (sorted.length - 1) * p;
+  const lo = Math.floor(h);
+  const hi = Math.min(sorted.length - 1, lo + 1);
+  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+/** For each event (time, value set), the latency to the first draw after it showing that value or a later one. */
+function latencies(events: { t: number; value: number }[], draws: DrawRecord[]): { ms: number[]; missed: number } {
+  const ms: number[] = [];
+  let missed = 0;
+  for (const ev of events) {
+    const hit = draws.find((d) => d.at >= ev.t && d.probe !== null && d.probe >= ev.value * (1 - 1e-9));
+    if (hit) ms.push(hit.at - ev.t);
+    else missed++;
+  }
+  return { ms, missed };
+}
+
+function row(name: string, target: number, r: { ms: number[]; missed: number }) {
+  const s = [...r.ms].sort((a, b) => a - b);
+  const f = (v: number) => (Number.isFinite(v) ? v.toFixed(1).padStart(7) : '    n/a');
+  const p95 = percentile(s, 0.95);
+  console.log(
+    `${name.padEnd(44)}${String(s.length).padStart(6)}${f(percentile(s, 0.5))}${f(p95)}${f(s[s.length - 1] ?? Number.NaN)}   ${target} ms  ${p95 < target ? 'met' : 'NOT met'}${r.missed ? `  (${r.missed} events never drawn)` : ''}`,
+  );
+}
+
+async function main() {
+  console.log(`bench:ui — ${EVENTS} pointer moves, one every ${INTERVAL} ms`);
+  const server = await startTestServer();
+  const browser = await launchBrowser();
+  const viewport = { width: 1600, height: 1000 };
+  try {
+    const a = await openSession(browser, server.url, { viewport });
+    const b = await openSession(browser, server.url, { viewport });
+    const owner = newAccount('Bench Tuner');
+    const watcher = newAccount('Bench Watcher');
+    await signUpByApi(a, owner);
+    await signUpByApi(b, watcher);
+    const created = await a.context.request.post('/api/rooms', { data: { name: 'UI bench', design: benchDesign() } });
+    if (!created.ok()) throw new Error(`room creation failed: ${created.status()} ${await created.text()}`);
+    const roomId = ((await created.json()) as { id: string }).id;
+    const added = await a.context.request.post(`/api/rooms/${roomId}/members`, { data: { email: watcher.email, role: 'observer' } });
+    if (!added.ok()) throw new Error(`adding the observer failed: ${added.status()} ${await added.text()}`);
+
+    for (const s of [a, b]) await s.context.addInitScript(installHooks, DRAGGED_ID);
+    await a.page.goto(`/rooms/${roomId}`);
+    await b.page.goto(`/rooms/${roomId}`);
+    await waitForDraws(a.page, 'tuner');
+    await waitForDraws(b.page, 'observer');
+
+    // the dragged value's label on the chain canvas (port on the left; element 8 is second from the port)
+    const canvas = a.page.locator('section[aria-label="Chain canvas"] canvas').first();
+    const box = await canvas.boundingBox();
+    if (!box) throw new Error('no chain canvas');
+    const layout = chainLayout(10);
+    const offsetX = Math.max(0, Math.floor((box.width - layout.width) / 2));
+    const x0 = box.x + offsetX + layout.cellX(DRAGGED_INDEX) + CELL_WIDTH / 2;
+    const y0 = box.y + 32;
+
+    const clear = (p: Page) => p.evaluate(() => {
+      const log = (window as unknown as { __benchLog: PageLog }).__benchLog;
+      log.input.length = 0;
+      log.chart.length = 0;
+      log.plot.length = 0;
+    });
+    await a.page.mouse.move(x0, y0);
+    await clear(a.page);
+    await clear(b.page);
+    await a.page.mouse.down();
+    for (let i = 1; i <= EVENTS; i++) {
+      await a.page.mouse.move(x0, y0 - i * PIXELS_PER_EVENT);
+      if (INTERVAL) await new Promise((r) => setTimeout(r, INTERVAL));
+      if (args['keep-screens'] && i === Math.floor(EVENTS / 2)) {
+        await a.screenshot('bench-ui-tuner-mid-drag');
+        await b.screenshot('bench-ui-observer-mid-drag');
+      }
+    }
+    await a.page.mouse.up();
+    await new Promise((r) => setTimeout(r, 1500));
+
+    const logA = (await a.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
+    const logB = (await b.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
+    // the first pointermove is the move to the start point's own press; the drag's moves follow in order
+    const moves = logA.input.slice(-EVENTS);
+    const events = moves.map((m, i) => ({
+      t: m.t,
+      value: stepValue(START_VALUE, dragSteps(-(i + 1) * PIXELS_PER_EVENT), { scale: 'log', size: 'normal' }),
+    }));
+    const finalA = logA.chart[logA.chart.length - 1]?.probe ?? null;
+    const finalB = logB.chart[logB.chart.length - 1]?.probe ?? null;
+    console.log(`  dragged ${DRAGGED_ID} from ${START_VALUE * 1e9} nH to ${(events[events.length - 1].value * 1e9).toFixed(4)} nH`);
+    console.log(`  last value drawn: tuner ${finalA === null ? 'none' : (finalA * 1e9).toFixed(4)} nH, observer ${finalB === null ? 'none' : (finalB * 1e9).toFixed(4)} nH`);
+    console.log(`  draws: tuner chart ${logA.chart.length}, tuner plot ${logA.plot.length}, observer chart ${logB.chart.length}; pointer events seen ${moves.length}`);
+
+    const chartA = latencies(events, logA.chart);
+    const plotA = latencies(events, logA.plot);
+    const both = { ms: [] as number[], missed: 0 };
+    events.forEach((ev) => {
+      const c = latencies([ev], logA.chart);
+      const p = latencies([ev], logA.plot);
+      if (c.ms.length && p.ms.length) both.ms.push(Math.max(c.ms[0], p.ms[0]));
+      else both.missed++;
+    });
+    const chartB = latencies(events, logB.chart);
+
+    console.log(`\n${'latency, ms'.padEnd(44)}${'n'.padStart(6)}${'p50'.padStart(7)}${'p95'.padStart(7)}${'max'.padStart(7)}   target`);
+    row('tuner: pointer event → chart redrawn', 16, chartA);
+    row('tuner: pointer event → sweep plot redrawn', 16, plotA);
+    row('tuner: pointer event → chart and plot redrawn', 16, both);
+    row('observer: tuner’s event → chart redrawn', 50, chartB);
+
+    for (const s of [a, b]) s.assertClean();
+    if (args['keep-screens']) {
+      await a.screenshot('bench-ui-tuner-after');
+      await b.screenshot('bench-ui-observer-after');
+    }
+    await a.close();
+    await b.close();
+  } finally {
+    await browser.close();
+    await server.close();
+  }
+}
+
+await main();
