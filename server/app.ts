@@ -19,6 +19,14 @@ import { authRoutes } from './routes/auth';
 import { roomRoutes } from './routes/rooms';
 import { memberRoutes } from './routes/members';
 import { snapshotRoutes } from './routes/snapshots';
+import { handoffRoutes } from './handoff/routes';
+import { noteRoutes } from './routes/notes';
+import { uploadRoutes } from './routes/uploads';
+import { lineageRoutes } from './routes/lineage';
+import { invitationRoutes } from './routes/invitations';
+import { devMailboxRoutes } from './routes/dev-mailbox';
+import type { Mailer } from './mail/mailer';
+import type { RoomUpdateSink } from './rooms/document-edit';
 import { clientRoutes } from './static';
 
 /** The part of the collab hub that routes call when rooms change. */
@@ -35,6 +43,10 @@ export interface AppDeps {
   logger: Logger;
   passwords: PasswordHasher;
   events: RoomEvents;
+  /** Outgoing mail (invitations, review requests). */
+  mailer: Mailer;
+  /** Stores a server-side edit of a room document and applies it to the live room. */
+  roomUpdates: RoomUpdateSink;
   /** true once migrated and listening, false again while shutting down. */
   isReady: () => boolean;
   /** true when the demo accounts exist and this is not production (health then says `demo: true`). */
@@ -101,6 +113,12 @@ export function createApp(deps: AppDeps): express.Express {
   api.use(roomRoutes(deps));
   api.use(memberRoutes(deps));
   api.use(snapshotRoutes(deps));
+  api.use(handoffRoutes(deps));
+  api.use(noteRoutes(deps));
+  api.use(uploadRoutes(deps));
+  api.use(lineageRoutes(deps));
+  api.use(invitationRoutes(deps));
+  if (deps.config.nodeEnv !== 'production') api.use(devMailboxRoutes(deps));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -17,6 +17,8 @@ export interface Config {
   nodeEnv: 'development' | 'production' | 'test';
   jwtSecret: Uint8Array;
   smtpUrl?: string;
+  /** The From of the mail the server sends (MAIL_FROM). */
+  mailFrom: string;
   publicUrl?: string;
   logLevel: string;
   redisUrl?: string;
@@ -30,6 +32,9 @@ export class ConfigError extends Error {
     this.name = 'ConfigError';
   }
 }
+
+/** `.invalid` is reserved (RFC 2606): no real domain is named. Set MAIL_FROM for a real mail server. */
+export const DEFAULT_MAIL_FROM = 'Matchloom <no-reply@matchloom.invalid>';
 
 const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const;
 const blankToUndefined = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
@@ -98,6 +103,14 @@ const envSchema = z.object({
     z.string().min(32, 'JWT_SECRET must be at least 32 characters').optional(),
   ),
   SMTP_URL: url('SMTP_URL'),
+  MAIL_FROM: z.preprocess(
+    blankToUndefined,
+    z
+      .string()
+      .max(320, 'MAIL_FROM must be at most 320 characters')
+      .refine((v) => !/[\r\n]/.test(v), 'MAIL_FROM must be one line')
+      .default(DEFAULT_MAIL_FROM),
+  ),
   PUBLIC_URL: url('PUBLIC_URL'),
   LOG_LEVEL: z.preprocess(
     (v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : v.trim().toLowerCase()) : v),
@@ -156,6 +169,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     nodeEnv: e.NODE_ENV,
     jwtSecret: e.JWT_SECRET ? new TextEncoder().encode(e.JWT_SECRET) : devSecret(e.DATABASE_FILE),
     smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
     publicUrl: e.PUBLIC_URL,
     logLevel: e.LOG_LEVEL,
     redisUrl: e.REDIS_URL,

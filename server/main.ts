@@ -16,6 +16,9 @@ import { createCollabHub } from './collab/index';
 import { seedDemo } from '../db/seeds/demo';
 import { findUserByEmail } from './services/users';
 import { DEMO_USERS } from '../shared/demo/designs';
+import { createMailer, type Mailer } from './mail/mailer';
+import type { RoomUpdateSink } from './rooms/document-edit';
+import { loopbackRoomSink } from './rooms/loopback-sink';
 
 export interface RunningServer {
   url: string;
@@ -34,11 +37,25 @@ export interface StartOptions {
 /** How long open connections may take to finish before they are cut at shutdown. */
 const CLOSE_GRACE_MS = 5000;
 
+/** The hub's own way to apply a server-side document update, when it has one. */
+function hubUpdateSink(hub: object): RoomUpdateSink | null {
+  const apply = (hub as Partial<RoomUpdateSink>).applyUpdate;
+  return typeof apply === 'function' ? { applyUpdate: apply.bind(hub) } : null;
+}
+
+/** An address on this machine that reaches a server listening on `host`. */
+function loopbackHost(host: string): string {
+  if (host === '0.0.0.0' || host === '') return '127.0.0.1';
+  if (host === '::') return '[::1]';
+  return host.includes(':') ? `[${host}]` : host;
+}
+
 export async function startServer(config: Config, options: StartOptions = {}): Promise<RunningServer> {
   const logger = options.logger ?? createLogger(config);
   const knex = createKnex(config.databaseFile);
   let ready = false;
   let demoAccounts = false;
+  let mailer: Mailer | undefined;
   try {
     const applied = await migrateLatest(knex);
     if (applied.length) logger.info({ applied }, 'database migrated');
@@ -48,6 +65,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     }
     demoAccounts =
       config.nodeEnv !== 'production' && (await findUserByEmail(knex, DEMO_USERS[0].email)) !== null;
+    mailer = await createMailer(config, logger);
   } catch (e) {
     await knex.destroy();
     throw e;
@@ -55,6 +73,8 @@ export async function startServer(config: Config, options: StartOptions = {}): P
 
   const tokens = createTokenService(config.jwtSecret);
   const hub = createCollabHub({ knex, tokens, logger, config });
+  let selfUrl = '';
+  const roomUpdates = hubUpdateSink(hub) ?? loopbackRoomSink({ knex, tokens, baseUrl: () => selfUrl });
   const app = createApp({
     config,
     knex,
@@ -62,6 +82,8 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     logger,
     passwords: createPasswordHasher(config.bcryptCost),
     events: hub,
+    mailer,
+    roomUpdates,
     isReady: () => ready,
     demoAccounts: () => demoAccounts,
     clientDir: options.clientDir === undefined ? DEFAULT_CLIENT_DIR : options.clientDir,
@@ -79,11 +101,13 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     });
   } catch (e) {
     await hub.close().catch(() => undefined);
+    await mailer.close().catch(() => undefined);
     await knex.destroy();
     throw e;
   }
   ready = true;
   const port = (httpServer.address() as AddressInfo).port;
+  selfUrl = `http://${loopbackHost(config.host)}:${port}`;
   const shownHost = config.host === '0.0.0.0' || config.host === '::' ? 'localhost' : config.host;
   const url = `http://${shownHost.includes(':') ? `[${shownHost}]` : shownHost}:${port}`;
   logger.info({ url }, 'matchloom listening');
@@ -99,6 +123,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
       timer.unref();
       await closed;
       clearTimeout(timer);
+      await mailer.close().catch((err) => logger.warn({ err }, 'the mailer did not close cleanly'));
       await knex.destroy();
       logger.info('matchloom stopped');
     })());

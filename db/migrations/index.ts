@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import * as initial from './20261201_0001_initial';
+import * as team from './20261215_0002_team';
 
 /**
  * The migrations, listed in order. A static list (rather than a folder scan) works the same under tsx,
@@ -7,6 +8,7 @@ import * as initial from './20261201_0001_initial';
  */
 const migrations: Record<string, Knex.Migration> = {
   '20261201_0001_initial': initial,
+  '20261215_0002_team': team,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

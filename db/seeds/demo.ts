@@ -1,6 +1,8 @@
 /**
  * The demo scenario (PRODUCT.md; all data invented, see shared/demo/designs.ts): three accounts, the
- * 2.4 GHz chip-antenna room, the 433 MHz whip room with two snapshots, and one branch of it.
+ * 2.4 GHz chip-antenna room (with an invented bench `.s1p` of the antenna among its uploads, not in use:
+ * the room starts with the RLC load), the 433 MHz whip room with two snapshots and a review note from
+ * the observer, and one branch of it.
  * Idempotent: when the demo owner account exists, nothing is written (so a room the team deleted stays
  * deleted across restarts). Everything is written in one transaction.
  */
@@ -22,6 +24,9 @@ import { createPasswordHasher, DEFAULT_BCRYPT_COST } from '../../server/auth/pas
 import { createUser, findUserByEmail } from '../../server/services/users';
 import { createRoomIn } from '../../server/services/rooms';
 import { insertSnapshot } from '../../server/services/snapshots';
+import { checkTouchstoneUpload, insertUpload } from '../../server/services/uploads';
+import { createNote } from '../../server/services/notes';
+import { CHIP_ANTENNA_S1P_NAME, chipAntennaTouchstone } from '../../shared/demo/chip-antenna-touchstone';
 import type { Role } from '../../server/auth/tokens';
 import type { DesignInput } from '../../shared/rf/design';
 
@@ -58,12 +63,18 @@ export async function seedDemo(
     const others = users.slice(1);
     const now = Date.now();
 
-    await createRoomIn(trx, {
+    const chipRoom = await createRoomIn(trx, {
       name: CHIP_ANTENNA_ROOM,
       ownerId: owner,
       design: chipAntennaDesign(),
       members: others,
       now: now - 1 * HOUR,
+    });
+    await insertUpload(trx, {
+      ...checkTouchstoneUpload(CHIP_ANTENNA_S1P_NAME, Buffer.from(chipAntennaTouchstone())),
+      roomId: chipRoom,
+      uploaderId: users[1].userId,
+      now: now - 0.5 * HOUR,
     });
 
     const whipRoom = await createRoomIn(trx, {
@@ -88,6 +99,15 @@ export async function seedDemo(
       state: stateOf(whipE12Design()),
       createdBy: users[1].userId,
       now: now - 3 * HOUR,
+    });
+
+    await createNote(trx, {
+      roomId: whipRoom,
+      authorId: users[2].userId,
+      elementId: 'c-shunt',
+      body:
+        'Could ±5 % on C2 push the band edges past VSWR 1.5 once the enclosure detunes the whip? A yield run before the hand-off would settle it.',
+      now: now - 2.5 * HOUR,
     });
 
     await createRoomIn(trx, {

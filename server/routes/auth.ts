@@ -5,7 +5,8 @@ import { clearSessionCookie, setSessionCookie, signedInUser } from '../auth/sess
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_CHARS } from '../auth/passwords';
 import { signinLimiter } from '../auth/rate-limit';
 import { HttpError } from '../errors';
-import { createUser, findUserCredentials } from '../services/users';
+import { createUser, findUserCredentials, getAccount, updateAccount } from '../services/users';
+import { accountPatchBodySchema } from '../../shared/api/account';
 import { bodyObject, check, emailSchema } from '../validate';
 import type { AppDeps } from '../app';
 
@@ -64,8 +65,19 @@ export function authRoutes({ knex, tokens, passwords, config }: AppDeps): Router
     res.status(204).end();
   });
 
-  r.get('/me', (req, res) => {
-    res.json(signedInUser(req));
+  r.get('/me', async (req, res) => {
+    const account = await getAccount(knex, signedInUser(req).id);
+    if (!account) throw new HttpError(401, 'unauthenticated', 'Sign in first.');
+    res.json(account);
+  });
+
+  r.patch('/me', async (req, res) => {
+    const user = signedInUser(req);
+    const body = check(accountPatchBodySchema, req.body);
+    await updateAccount(knex, user.id, body);
+    const account = await getAccount(knex, user.id);
+    if (!account) throw new HttpError(401, 'unauthenticated', 'Sign in first.');
+    res.json(account);
   });
 
   return r;

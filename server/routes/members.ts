@@ -6,6 +6,8 @@ import { requireRoomRole } from '../rooms/access';
 import { addMember, changeRole, listInvitations, removeMember } from '../services/members';
 import { listMembers } from '../services/rooms';
 import { bodyObject, check, emailSchema, idParam, roleSchema } from '../validate';
+import { appBaseUrl, invitationLink } from '../links';
+import { invitationMail } from '../mail/messages';
 import type { AppDeps } from '../app';
 
 const addBody = bodyObject({ email: emailSchema, role: roleSchema });
@@ -17,7 +19,7 @@ function memberId(v: unknown): string {
   return r.data;
 }
 
-export function memberRoutes({ knex, events }: AppDeps): Router {
+export function memberRoutes({ knex, events, mailer, config, logger }: AppDeps): Router {
   const r = Router();
 
   r.get('/rooms/:id/members', async (req, res) => {
@@ -39,8 +41,25 @@ export function memberRoutes({ knex, events }: AppDeps): Router {
       events.roleChanged(roomId, result.member.userId, result.member.role);
       res.status(201).json(result.member);
     } else {
-      // Stored only: the invitation e-mail itself is sent by a later issue's mail service.
-      res.status(202).json({ invited: true, ...result.invitation });
+      const room = await knex('rooms').where({ id: roomId }).first('name');
+      let mailSent = true;
+      try {
+        await mailer.send(
+          invitationMail({
+            to: result.invitation.email,
+            roomName: room?.name ?? 'a room',
+            role: result.invitation.role,
+            inviterName: user.displayName,
+            link: invitationLink(appBaseUrl(req, config), result.token),
+            expiresAt: result.invitation.expiresAt,
+          }),
+        );
+      } catch (err) {
+        // The invitation is kept; inviting the address again sends a new link.
+        mailSent = false;
+        (req.log ?? logger).warn({ err, invitationId: result.invitation.id }, 'the invitation could not be mailed');
+      }
+      res.status(202).json({ invited: true, ...result.invitation, mailSent });
     }
   });
 

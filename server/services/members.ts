@@ -6,25 +6,32 @@ import type { Knex } from 'knex';
 import type { Role } from '../auth/tokens';
 import { conflict, notFound } from '../errors';
 import { newId } from '../ids';
+import { newInvitationToken } from './invitations';
 import { getRole } from '../rooms/membership';
 import { findUserByEmail } from './users';
 import type { MemberView } from './rooms';
 import { listMembers } from './rooms';
 
-export const INVITATION_TTL_MS = 14 * 24 * 60 * 60 * 1000;
+/** An invitation link works for 7 days (and once). */
+export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 
 export type AddMemberResult =
   | { kind: 'added'; member: MemberView }
-  | { kind: 'invited'; invitation: { id: string; email: string; role: Role; expiresAt: number } };
+  | {
+      kind: 'invited';
+      invitation: { id: string; email: string; role: Role; expiresAt: number };
+      /** The secret of the invitation link (only its hash is stored): mail it, never log it. */
+      token: string;
+    };
 
 const lastOwner = () =>
   conflict('last-owner', 'A room needs at least one owner: make someone else an owner first.');
 const memberNotFound = () => notFound('That user is not a member of this room.');
 
 /**
- * Add the account with this e-mail address, or, when there is none, store an invitation for it.
- * (The invitation e-mail and its acceptance link come with a later issue; for now the row is kept so
- * the invitation can be sent and honoured then.)
+ * Add the account with this e-mail address, or, when there is none, store an invitation for it and
+ * return the secret token of its link (the caller mails it). Inviting the same address again replaces
+ * the earlier pending invitation, whose link then stops working.
  */
 export async function addMember(
   knex: Knex,
@@ -45,16 +52,18 @@ export async function addMember(
         role: input.role,
         expiresAt: now + INVITATION_TTL_MS,
       };
+      const { token, tokenHash } = newInvitationToken();
       await trx('invitations').insert({
         id: invitation.id,
         room_id: input.roomId,
         email: input.email,
         role: input.role,
         invited_by: input.invitedBy,
+        token_hash: tokenHash,
         expires_at: invitation.expiresAt,
         created_at: now,
       });
-      return { kind: 'invited', invitation };
+      return { kind: 'invited', invitation, token };
     }
     if (await getRole(trx, input.roomId, user.id))
       throw conflict('already-member', 'That user is already a member of this room.');

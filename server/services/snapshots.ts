@@ -207,3 +207,24 @@ export async function branchFromSnapshot(
     }
   });
 }
+
+/**
+ * Rename a snapshot and/or mark it for review (or clear the mark). `markedForReview` is true when this
+ * call turned the mark on (the caller then asks the room's reviewers).
+ */
+export async function updateSnapshot(
+  knex: Knex,
+  snapshotId: string,
+  change: { label?: string; forReview?: boolean },
+): Promise<{ snapshot: SnapshotView; markedForReview: boolean }> {
+  return knex.transaction(async (trx) => {
+    const row = await trx('snapshots').where({ id: snapshotId }).first('for_review');
+    if (!row) throw notFound('Snapshot not found.');
+    const update: Record<string, unknown> = {};
+    if (change.label !== undefined) update.label = change.label;
+    if (change.forReview !== undefined) update.for_review = change.forReview;
+    if (Object.keys(update).length > 0) await trx('snapshots').where({ id: snapshotId }).update(update);
+    const snapshot = toView((await snapshotQuery(trx).where('s.id', snapshotId).first()) as SnapshotRow);
+    return { snapshot, markedForReview: change.forReview === true && !row.for_review };
+  });
+}

@@ -73,3 +73,21 @@ export async function createUser(
   }
   return toPublic(row);
 }
+
+/** The account with its settings (for `GET/PATCH /api/me`). */
+export async function getAccount(
+  knex: Knex | Knex.Transaction,
+  id: string,
+): Promise<(PublicUser & { notifyReviews: boolean }) | null> {
+  const row = (await knex('users').where({ id }).first()) as (UserRow & { notify_reviews: number | boolean }) | undefined;
+  return row ? { ...toPublic(row), notifyReviews: Boolean(row.notify_reviews) } : null;
+}
+
+export async function updateAccount(
+  knex: Knex | Knex.Transaction,
+  id: string,
+  change: { notifyReviews?: boolean },
+): Promise<void> {
+  if (change.notifyReviews !== undefined)
+    await knex('users').where({ id }).update({ notify_reviews: change.notifyReviews });
+}

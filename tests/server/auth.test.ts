@@ -37,7 +37,7 @@ describe('POST /api/auth/signup', () => {
     expect(cookie).toMatch(/Max-Age=604800/);
     expect(cookie).not.toMatch(/Secure/i); // only in production
     const me = await agent.get('/api/me').expect(200);
-    expect(me.body).toEqual(res.body);
+    expect(me.body).toEqual({ ...res.body, notifyReviews: true });
   });
 
   it('refuses a second account for the same address (any case) with 409 and a discreet message', async () => {
