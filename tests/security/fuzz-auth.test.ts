@@ -6,6 +6,7 @@ import { startTestServer, type TestServer } from '../server/helpers/test-server'
 import { signUpAccount, type Account } from './helpers/fixtures';
 import { expectPrototypeClean, hostileString, probe, rawBody, requestWithRaw, runs, shapedBody, type FuzzTarget } from './helpers/fuzz';
 import { rawRequest } from './helpers/http';
+import { changedTables, fingerprint } from './helpers/db';
 
 let server: TestServer;
 let t: FuzzTarget;
@@ -87,7 +88,8 @@ describe('POST /api/auth/signin', () => {
     }
   });
 
-  it('raw bodies: refused cleanly', async () => {
+  it('raw bodies: refused cleanly, and the database is byte for byte as before', async () => {
+    const before = await fingerprint(server.knex);
     await fc.assert(
       fc.asyncProperty(rawBody, async (raw) => {
         const status = await probe(t, requestWithRaw({ method: 'POST', path: '/api/auth/signin' }, raw));
@@ -95,6 +97,7 @@ describe('POST /api/auth/signin', () => {
       }),
       runs(804, 60),
     );
+    expect(changedTables(before, await fingerprint(server.knex))).toEqual([]);
   });
 });
 

@@ -31,3 +31,13 @@ export function changedTables(before: Fingerprint, after: Fingerprint): string[]
   const names = new Set([...Object.keys(before), ...Object.keys(after)]);
   return [...names].filter((n) => before[n]?.sha256 !== after[n]?.sha256).sort();
 }
+
+/**
+ * Rows inserted, updated or deleted so far through the server's database connection (SQLite's
+ * `total_changes()`; Knex keeps one connection for SQLite, so every write the server makes counts).
+ * Cheap enough to read around every request.
+ */
+export async function writeCount(knex: Knex): Promise<number> {
+  const rows = (await knex.raw('SELECT total_changes() AS n')) as { n: number }[];
+  return Number(rows[0].n);
+}

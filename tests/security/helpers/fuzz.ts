@@ -5,7 +5,7 @@
 import fc from 'fast-check';
 import { expect } from 'vitest';
 import type { Knex } from 'knex';
-import { changedTables, fingerprint } from './db';
+import { writeCount } from './db';
 import { checkAnswer, describeExchange, rawRequest, type RawRequest } from './http';
 
 /** Strings an attacker would try, and arbitrary ones. */
@@ -133,16 +133,17 @@ export interface FuzzTarget {
 }
 
 /**
- * Send one hostile request and check the answer; a refused one must leave the database as it was.
+ * Send one hostile request and check the answer; a refused one must not have written a single row
+ * (the test files also compare whole-database fingerprints around runs of refused requests).
  * Returns the status.
  */
 export async function probe(t: FuzzTarget, req: RawRequest): Promise<number> {
-  const before = await fingerprint(t.knex);
+  const before = await writeCount(t.knex);
   const res = await rawRequest(t.baseUrl, req);
   const refused = checkAnswer(req, res);
   if (refused) {
-    const changed = changedTables(before, await fingerprint(t.knex));
-    expect(changed, `a refused request changed the database: ${describeExchange(req, res)}`).toEqual([]);
+    const written = (await writeCount(t.knex)) - before;
+    expect(written, `a refused request wrote ${written} row(s): ${describeExchange(req, res)}`).toBe(0);
   }
   return res.status;
 }
