@@ -34,7 +34,7 @@ import { BandForm, PortForm } from './forms/band-form';
 import { LoadForm } from './forms/load-form';
 import { ElementInspector } from './inspector/element-inspector';
 import { smallButton } from './inspector/small-button';
-import { SideTabs } from './layout/side-tabs';
+import { SideTabs, type SideTab } from './layout/side-tabs';
 import { SplitHandle } from './layout/split-handle';
 import { useElementSize } from './layout/use-element-size';
 import { useScreenHeight } from './layout/use-screen-frame';
@@ -145,14 +145,22 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   }, [view, selectedId, tab]);
 
   // ---- undo / redo (this user's own edits only) -----------------------------------------------
+  const undo = () => {
+    editor?.undo();
+    setNotice(null);
+  };
+  const redo = () => {
+    editor?.redo();
+    setNotice(null);
+  };
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
       if (!editor || !editable || isTextEntry(e.target)) return;
       const mod = e.ctrlKey || e.metaKey;
       if (!mod) return;
       const key = e.key.toLowerCase();
-      if (key === 'z' && !e.shiftKey) editor.undo();
-      else if ((key === 'z' && e.shiftKey) || key === 'y') editor.redo();
+      if (key === 'z' && !e.shiftKey) undo();
+      else if ((key === 'z' && e.shiftKey) || key === 'y') redo();
       else return;
       e.preventDefault();
     };
@@ -226,15 +234,15 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
     return e ? elementName(e) : id;
   }, [design]);
 
-  const tabs: { key: TabKey; label: string; badge?: string | null }[] = [
-    { key: 'element', label: 'Element', badge: selectedElement ? elementName(selectedElement) : null },
+  const tabs: SideTab<TabKey>[] = [
+    { key: 'element', label: 'Element', badge: selectedElement ? elementName(selectedElement) : null, badgeLabel: selectedElement ? `${elementName(selectedElement)} selected` : undefined },
     { key: 'load', label: 'Load' },
     { key: 'band', label: 'Band & port' },
     { key: 'figures', label: 'Figures' },
     { key: 'finder', label: 'Match finder' },
     { key: 'refine', label: 'Refine' },
     { key: 'yield', label: 'Yield run' },
-    { key: 'room', label: 'Room', badge: others.length ? String(others.length) : null },
+    { key: 'room', label: 'Room', badge: others.length ? String(others.length) : null, badgeLabel: `${others.length} other${others.length === 1 ? '' : 's'} here` },
   ];
 
   const waiting = <p className="text-sm text-ink-faint">{room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}</p>;
@@ -333,10 +341,10 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
         )}
         {editable && editor && (
           <span className="flex items-center gap-1" role="group" aria-label="Undo and redo your own edits">
-            <button type="button" className={smallButton()} disabled={!editor.canUndo} onClick={editor.undo} title="Undo your last edit (Ctrl+Z)">
+            <button type="button" className={smallButton()} disabled={!editor.canUndo} onClick={undo} title="Undo your last edit (Ctrl+Z)">
               Undo
             </button>
-            <button type="button" className={smallButton()} disabled={!editor.canRedo} onClick={editor.redo} title="Redo (Ctrl+Shift+Z)">
+            <button type="button" className={smallButton()} disabled={!editor.canRedo} onClick={redo} title="Redo (Ctrl+Shift+Z)">
               Redo
             </button>
           </span>

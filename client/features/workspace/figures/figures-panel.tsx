@@ -28,7 +28,7 @@ export interface FiguresProps {
 
 function Verdict({ ok, yes, no }: { ok: boolean; yes: string; no: string }) {
   return (
-    <span className={ok ? 'rounded-full bg-teal-soft px-2 py-0.5 text-[11px] font-bold text-teal-deep' : 'rounded-full bg-coral-soft px-2 py-0.5 text-[11px] font-bold text-coral-deep'}>
+    <span className={ok ? 'whitespace-nowrap rounded-full bg-teal-soft px-2 py-0.5 text-[11px] font-bold text-teal-deep' : 'whitespace-nowrap rounded-full bg-coral-soft px-2 py-0.5 text-[11px] font-bold text-coral-deep'}>
       {ok ? yes : no}
     </span>
   );

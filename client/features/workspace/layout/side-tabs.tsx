@@ -11,6 +11,8 @@ export interface SideTab<K extends string> {
   label: string;
   /** a small count or mark after the label */
   badge?: string | null;
+  /** the badge in words, for screen readers ("2 others here") */
+  badgeLabel?: string;
 }
 
 export interface SideTabsProps<K extends string> {
@@ -51,6 +53,7 @@ export function SideTabs<K extends string>({ tabs, active, onChange, panels, lab
               role="tab"
               id={`${base}-tab-${t.key}`}
               aria-selected={selected}
+              aria-label={t.badge ? `${t.label}, ${t.badgeLabel ?? t.badge}` : undefined}
               aria-controls={`${base}-panel-${t.key}`}
               tabIndex={selected ? 0 : -1}
               onClick={() => onChange(t.key)}
@@ -60,7 +63,7 @@ export function SideTabs<K extends string>({ tabs, active, onChange, panels, lab
               )}
             >
               {t.label}
-              {t.badge && <span className={cx('ml-1 rounded-full px-1.5 text-[10px]', selected ? 'bg-paper/20' : 'bg-paper-deep')}>{t.badge}</span>}
+              {t.badge && <span aria-hidden="true" className={cx('ml-1 rounded-full px-1.5 text-[10px]', selected ? 'bg-paper/20' : 'bg-paper-deep')}>{t.badge}</span>}
             </button>
           );
         })}
