@@ -62,11 +62,17 @@ export function uniqueEmail(prefix = 'user'): string {
 
 export const TEST_PASSWORD = 'correct horse battery';
 
-/** Sign up a new account; returns an agent holding its session cookie and the account. */
+/** Sign up a new account; returns an agent holding its session cookie, the account and the cookie itself. */
 export async function signUp(
   server: Pick<TestServer, 'agent'>,
   input: { email?: string; password?: string; displayName?: string } = {},
-): Promise<{ agent: TestAgent; user: { id: string; email: string; displayName: string }; password: string }> {
+): Promise<{
+  agent: TestAgent;
+  user: { id: string; email: string; displayName: string };
+  password: string;
+  /** `ml_session=<token>`, for sockets. */
+  cookie: string;
+}> {
   const agent = server.agent();
   const password = input.password ?? TEST_PASSWORD;
   const res = await agent
@@ -77,7 +83,9 @@ export async function signUp(
       displayName: input.displayName ?? 'Test Engineer',
     })
     .expect(201);
-  return { agent, user: res.body, password };
+  const setCookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []);
+  const cookie = setCookie.find((c) => c.startsWith('ml_session='))?.split(';')[0] ?? '';
+  return { agent, user: res.body, password, cookie };
 }
 
 /** A signed-in agent for an existing account. */
