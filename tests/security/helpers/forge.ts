@@ -104,7 +104,8 @@ export async function forgeries(claims: Claims, real: string, secret: Uint8Array
     { name: 'two parts', token: real.split('.').slice(0, 2).join('.') },
     { name: 'garbage', token: 'not-a-token' },
     { name: 'empty segments', token: '..' },
-    { name: 'huge', token: `${real}${'A'.repeat(20_000)}` },
+    // Past the verifier's 4096-character cap, under Node's 16 KB header limit (past that Node answers 431 itself).
+    { name: 'huge', token: `${real}${'A'.repeat(6000)}` },
   ];
 }
 
