@@ -259,8 +259,9 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
     const n2 = nr * nr + ni * ni;
     const q2 = qr * qr + qi * qi;
     if (n2 <= OPEN2 * q2) {
-      zin[o2] = (nr * qr + ni * qi) / q2;
-      zin[o2 + 1] = (ni * qr - nr * qi) / q2;
+      const iq = 1 / q2;
+      zin[o2] = (nr * qr + ni * qi) * iq;
+      zin[o2 + 1] = (ni * qr - nr * qi) * iq;
     } else impedanceRatio(nr, ni, qr, qi, zin, o2);
 
     // Γ = (N − Zs*·D')/(N + Zs·D'); Vs = N + Zs·D' for a load current of 1.
@@ -268,38 +269,46 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
     const gni = ni - (zsr * qi - zsi * qr);
     const vsr = nr + (zsr * qr - zsi * qi);
     const vsi = ni + (zsr * qi + zsi * qr);
-    // Scale Vs to unit size before dividing, so huge chain matrices cannot overflow.
-    const vm = Math.abs(vsr) > Math.abs(vsi) ? Math.abs(vsr) : Math.abs(vsi);
-    const k = vm > 0 ? 1 / vm : 0;
-    const ur = vsr * k, ui = vsi * k;
-    const u2 = ur * ur + ui * ui;
-    const gr = ((gnr * k) * ur + (gni * k) * ui) / u2;
-    const gi = ((gni * k) * ur - (gnr * k) * ui) / u2;
+    const v2 = vsr * vsr + vsi * vsi;
+    let gr: number, gi: number, pw: number;
+    if (v2 > 1e-300 && v2 < 1e300) {
+      const iv = 1 / v2;
+      gr = (gnr * vsr + gni * vsi) * iv;
+      gi = (gni * vsr - gnr * vsi) * iv;
+      // P_load/P_avail = 4·Re Z_L·Re Zs/|Vs|².
+      pw = 4 * lr * zsr * iv;
+    } else {
+      // Rescale first so that huge (or tiny) chain matrices cannot overflow.
+      const vm = Math.abs(vsr) > Math.abs(vsi) ? Math.abs(vsr) : Math.abs(vsi);
+      const k = vm > 0 ? 1 / vm : 0;
+      const ur = vsr * k, ui = vsi * k;
+      const u2 = ur * ur + ui * ui;
+      gr = (gnr * k * ur + gni * k * ui) / u2;
+      gi = (gni * k * ur - gnr * k * ui) / u2;
+      pw = (4 * (lr * k) * (zsr * k)) / u2;
+      if (!Number.isFinite(pw)) pw = 0;
+    }
     gamma[o2] = gr;
     gamma[o2 + 1] = gi;
-    const mag = Math.sqrt(gr * gr + gi * gi);
-    gammaMagnitude[i] = mag;
-    // Figures (figures.ts conventions, inlined).
-    if (mag >= 1) {
-      vswr[i] = Infinity;
-      mismatchLossDb[i] = Infinity;
-    } else {
-      vswr[i] = (1 + mag) / (1 - mag);
-      mismatchLossDb[i] = -10 * Math.log10(1 - mag * mag);
-    }
-    returnLossDb[i] = -20 * Math.log10(mag > RL_FLOOR ? mag : RL_FLOOR);
-    // P_load/P_avail = 4·Re Z_L·Re Zs/|Vs|².
-    const pw = (4 * (lr * k) * (zsr * k)) / u2;
-    powerToLoad[i] = pw === pw && pw !== Infinity && pw !== -Infinity ? pw : 0;
+    gammaMagnitude[i] = Math.sqrt(gr * gr + gi * gi);
+    powerToLoad[i] = pw;
 
     // Chain S on z0 (Pozar Table 4.2): Δ = A + B/z0 + C·z0 + D.
     const bnr = br * iz0, bni = bi * iz0, czr = cr * z0, czi = ci * z0;
     const er = ar + bnr + czr + dr, ei = ai + bni + czi + di;
-    const em = Math.abs(er) > Math.abs(ei) ? Math.abs(er) : Math.abs(ei);
-    const h = 1 / em;
-    const hr = er * h, hi = ei * h;
-    const h2 = (hr * hr + hi * hi) * em;
-    const xr = hr / h2, xi = -hi / h2; // 1/Δ
+    const e2 = er * er + ei * ei;
+    let xr: number, xi: number; // 1/Δ
+    if (e2 > 1e-300 && e2 < 1e300) {
+      const ie = 1 / e2;
+      xr = er * ie;
+      xi = -ei * ie;
+    } else {
+      const em = Math.abs(er) > Math.abs(ei) ? Math.abs(er) : Math.abs(ei);
+      const hr = er / em, hi = ei / em;
+      const h2 = (hr * hr + hi * hi) * em;
+      xr = hr / h2;
+      xi = -hi / h2;
+    }
     const s11r = ar + bnr - czr - dr, s11i = ai + bni - czi - di;
     s11[o2] = s11r * xr - s11i * xi;
     s11[o2 + 1] = s11r * xi + s11i * xr;
@@ -313,7 +322,23 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
     s12[o2] = 2 * (detr * xr - deti * xi);
     s12[o2 + 1] = 2 * (detr * xi + deti * xr);
   }
+  reflectionFigures(gammaMagnitude, vswr, returnLossDb, mismatchLossDb);
   return { zin, gamma, gammaMagnitude, vswr, returnLossDb, mismatchLossDb, powerToLoad, s: { s11, s21, s12, s22 } };
+}
+
+/** VSWR, return loss and mismatch loss from |Γ| (figures.ts conventions, inlined in a tight second pass). */
+function reflectionFigures(mags: Float64Array, vswr: Float64Array, returnLossDb: Float64Array, mismatchLossDb: Float64Array): void {
+  for (let i = 0; i < mags.length; i++) {
+    const mag = mags[i];
+    if (mag >= 1) {
+      vswr[i] = Infinity;
+      mismatchLossDb[i] = Infinity;
+    } else {
+      vswr[i] = (1 + mag) / (1 - mag);
+      mismatchLossDb[i] = -10 * Math.log10(1 - mag * mag);
+    }
+    returnLossDb[i] = -20 * Math.log10(mag > RL_FLOOR ? mag : RL_FLOOR);
+  }
 }
 
 /** |Γ| at arbitrary frequencies through the fast path. */

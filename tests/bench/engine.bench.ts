@@ -42,17 +42,27 @@ function design(points: number): Design {
   });
 }
 
-/** Median wall time in ms of `fn` over `reps` runs after `warmup` runs. */
-function medianMs(fn: () => unknown, reps: number, warmup: number): number {
-  for (let i = 0; i < warmup; i++) fn();
-  const t: number[] = [];
-  for (let i = 0; i < reps; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
+/**
+ * Median per-call wall times (ms) of `a` and `b`, measured in alternating batches so that a change
+ * in the machine's load during the run affects both alike (the ratio is what the target is about).
+ */
+function pairedMedians(a: () => unknown, b: () => unknown, rounds: number, batch: number, warmup: number): [number, number] {
+  for (let i = 0; i < warmup; i++) {
+    a();
+    b();
   }
-  t.sort((a, b) => a - b);
-  return t[t.length >> 1];
+  const ta: number[] = [];
+  const tb: number[] = [];
+  for (let r = 0; r < rounds; r++) {
+    let t0 = performance.now();
+    for (let k = 0; k < batch; k++) a();
+    ta.push((performance.now() - t0) / batch);
+    t0 = performance.now();
+    for (let k = 0; k < batch; k++) b();
+    tb.push((performance.now() - t0) / batch);
+  }
+  const median = (t: number[]) => [...t].sort((x, y) => x - y)[t.length >> 1];
+  return [median(ta), median(tb)];
 }
 
 interface PythonTimes {
@@ -72,10 +82,8 @@ export default async function engineBench(): Promise<void> {
   const out1 = new Float64Array(2 * 1001);
   const out2 = new Float64Array(2 * 100_001);
 
-  const analyze1 = medianMs(() => analyze(d1), 400, 100);
-  const zin1 = medianMs(() => chainZin(ctx1, d1.elements, out1), 1000, 200);
-  const analyze2 = medianMs(() => analyze(d2), 15, 3);
-  const zin2 = medianMs(() => chainZin(ctx2, d2.elements, out2), 15, 3);
+  const [analyze1, zin1] = pairedMedians(() => analyze(d1), () => chainZin(ctx1, d1.elements, out1), 80, 5, 200);
+  const [analyze2, zin2] = pairedMedians(() => analyze(d2), () => chainZin(ctx2, d2.elements, out2), 11, 1, 3);
 
   const job = {
     chain: { z0: 50, load: d1.load, elements: d1.elements },
@@ -120,7 +128,7 @@ export default async function engineBench(): Promise<void> {
     rows.push(['scikit-rf, 1,001 points', ms(py.skrf['1001']), `analyze is ${ratio(py.skrf['1001'] / analyze1)} faster (target ≥ 100×)`]);
     rows.push(['numpy ABCD cascade, 100,001 points', ms(py.numpy['100001']), `analyze is ${ratio(py.numpy['100001'] / analyze2)} faster (target ≥ 1.5×)`]);
   }
-  console.log(`\nEngine (median wall times; load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores)${agreement}`);
+  console.log(`\nEngine (median wall times, analyze and chainZin in alternating batches; load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores)${agreement}`);
   const w0 = Math.max(...rows.map((r) => r[0].length));
   const w1 = Math.max(...rows.map((r) => r[1].length));
   for (const [a, b, c] of rows) console.log(`  ${a.padEnd(w0)}  ${b.padStart(w1)}  ${c}`);
