@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze } from '../../shared/rf/analyze';
 import { chainZin, sweepContext } from '../../shared/rf/cascade';
 import { DesignError, type Design } from '../../shared/rf/design';
-import { sweepFrequencies } from '../../shared/rf/frequency';
+import { bandFrequencies, sweepFrequencies } from '../../shared/rf/frequency';
 import { resultToJson } from '../../shared/rf/result';
 import { designOf } from './helpers';
 
@@ -34,6 +34,15 @@ describe('analyze(): sweep grid', () => {
     const log = sweepFrequencies({ startHz: 1e6, stopHz: 1e9, points: 4, spacing: 'log' });
     expect(Array.from(log).map((f) => Math.round(f))).toEqual([1e6, 1e7, 1e8, 1e9]);
     expect(Array.from(sweepFrequencies({ startHz: 5e8, stopHz: 5e8, points: 1 }))).toEqual([5e8]);
+  });
+});
+
+describe('bandFrequencies', () => {
+  it('is the sweep points inside the band plus both edges, ascending, without duplicates (CONTRACT §3 worstInBand)', () => {
+    const d = designOf({ band: { startHz: 2.4e9, stopHz: 2.5e9 }, sweep: { startHz: 2e9, stopHz: 3e9, points: 21 } });
+    expect(Array.from(bandFrequencies(d))).toEqual([2.4e9, 2.45e9, 2.5e9]);
+    const d2 = designOf({ band: { startHz: 2.41e9, stopHz: 2.52e9 }, sweep: { startHz: 2e9, stopHz: 3e9, points: 21 } });
+    expect(Array.from(bandFrequencies(d2))).toEqual([2.41e9, 2.45e9, 2.5e9, 2.52e9]);
   });
 });
 
