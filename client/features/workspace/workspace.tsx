@@ -6,12 +6,14 @@
  * at once; an observer sees it all live with no editing control.
  */
 import { useCallback, useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { presenceColour } from '../../../shared/collab/presence';
 import type { ViewState } from '../../../shared/collab/events';
 import type { ElementKind } from '../../../shared/rf/design';
 import type { ESeries } from '../../../shared/rf/eseries';
 import { paths } from '../../config/paths';
+import { queryKeys } from '../../lib/query-keys';
 import { useMe } from '../auth/api/get-me';
 import { getEngineClient } from './analysis/engine-client';
 import { useAnalysis } from './analysis/use-analysis';
@@ -73,6 +75,12 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   const currentRole: RoomRole | null = events.roleUpdate ? events.roleUpdate.role : role;
   const lostAccess = room.status === 'denied' || currentRole === null || events.deleted;
   const editable = !lostAccess && (currentRole === 'owner' || currentRole === 'tuner');
+  // A new role shows at once in the page header too (after a removal the header keeps the last one:
+  // refetching the room would answer 404 and replace the screen the banner explains).
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (events.roleUpdate?.role) void queryClient.invalidateQueries({ queryKey: queryKeys.rooms.all });
+  }, [events.roleUpdate, queryClient]);
   const editor = useLocalUndo(room.doc, me?.id ?? null);
   const edits = useDesignEdits(room.doc, editor, editable);
   const presenceUser = useMemo<PresenceUser | null>(
@@ -223,8 +231,8 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
     [presence.peers],
   );
   const rows = useMemo(
-    () => presenceRows(events.members, presence.peers, me ? { id: me.id, name: me.displayName, role: currentRole ?? role } : null),
-    [events.members, presence.peers, me, currentRole, role],
+    () => presenceRows(events.members, presence.peers, me ? { id: me.id, name: me.displayName, role: currentRole ?? role, selection: selectedId } : null),
+    [events.members, presence.peers, me, currentRole, role, selectedId],
   );
   const others = rows.filter((r) => !r.isMe);
   const followedName = following ? (rows.find((r) => r.userId === following)?.name ?? 'a member') : null;

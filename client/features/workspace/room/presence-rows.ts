@@ -19,9 +19,22 @@ export interface PresenceRow {
   following: string | null;
 }
 
-export function presenceRows(members: readonly PresenceMember[], peers: readonly Peer[], me: { id: string; name: string; role: RoomRole } | null): PresenceRow[] {
+export interface PresenceMe {
+  id: string;
+  name: string;
+  role: RoomRole;
+  /** this screen's own selection (awareness lists only the others) */
+  selection: string | null;
+}
+
+export function presenceRows(members: readonly PresenceMember[], peers: readonly Peer[], me: PresenceMe | null): PresenceRow[] {
   const selections = new Map<string, string[]>();
-  for (const p of peers) if (p.selection) selections.set(p.user.id, [...(selections.get(p.user.id) ?? []), p.selection]);
+  const add = (userId: string, id: string) => {
+    const list = selections.get(userId) ?? [];
+    if (!list.includes(id)) selections.set(userId, [...list, id]);
+  };
+  if (me?.selection) add(me.id, me.selection);
+  for (const p of peers) if (p.selection) add(p.user.id, p.selection);
   const rows = new Map<string, PresenceRow>();
   for (const m of members)
     rows.set(m.userId, {
@@ -46,7 +59,15 @@ export function presenceRows(members: readonly PresenceMember[], peers: readonly
     });
   }
   if (me && !rows.has(me.id))
-    rows.set(me.id, { userId: me.id, name: me.name, role: me.role, colour: presenceColour(me.id), isMe: true, selections: [], following: null });
+    rows.set(me.id, {
+      userId: me.id,
+      name: me.name,
+      role: me.role,
+      colour: presenceColour(me.id),
+      isMe: true,
+      selections: selections.get(me.id) ?? [],
+      following: null,
+    });
   const rank: Record<RoomRole, number> = { owner: 0, tuner: 1, observer: 2 };
   return [...rows.values()].sort((a, b) => Number(b.isMe) - Number(a.isMe) || rank[a.role] - rank[b.role] || a.name.localeCompare(b.name));
 }
