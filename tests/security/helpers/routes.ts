@@ -70,7 +70,12 @@ export async function listApiRoutes(): Promise<ApiRoute[]> {
   }
 }
 
-/** Fill `:params` in a route path. */
+/** encodeURIComponent for any string (a lone surrogate, which it refuses, becomes U+FFFD first). */
+export function encodeAny(s: string): string {
+  return encodeURIComponent(Buffer.from(s, 'utf8').toString('utf8'));
+}
+
+/** Fill `:params` in a route path (each value percent-encoded). */
 export function fillPath(path: string, values: Record<string, string>): string {
-  return path.replace(/:(\w+)/g, (_m, name: string) => encodeURIComponent(values[name] ?? 'missing-param'));
+  return path.replace(/:(\w+)/g, (_m, name: string) => encodeAny(values[name] ?? 'missing-param'));
 }
