@@ -21,3 +21,16 @@ export const roomLoader =
     }
     return null;
   };
+
+/**
+ * A room page's loader: the room first (as `roomLoader`), and alongside it whatever the page
+ * prefetches (`prefetch(roomId)`, which must not throw: use `prefetchQuery`).
+ */
+export const roomPageLoader =
+  (prefetch: (queryClient: QueryClient, roomId: string) => Promise<unknown>) =>
+  (queryClient: QueryClient) =>
+  async (args: LoaderFunctionArgs) => {
+    if (!(await isSignedIn(queryClient))) return null;
+    await Promise.all([roomLoader(queryClient)(args), prefetch(queryClient, args.params.roomId ?? '')]);
+    return null;
+  };

@@ -37,6 +37,9 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
       children: [
         { path: paths.auth.signIn.path, lazy: () => import('./routes/sign-in').then(load) },
         { path: paths.auth.signUp.path, lazy: () => import('./routes/sign-up').then(load) },
+        // Open to anyone holding the link, signed in or not; the page says what to do.
+        { path: paths.invitation.path, lazy: () => import('./routes/invitation').then(load) },
+        { path: paths.mailbox.path, lazy: () => import('./routes/mailbox').then(load) },
         {
           // Everything below needs a signed-in user; the layout's loader sends others to sign in.
           lazy: () => import('./layout').then(load),
@@ -45,6 +48,12 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.rooms.path, lazy: () => import('./routes/rooms').then(load) },
             { path: paths.room.path, lazy: () => import('./routes/room').then(load) },
             { path: paths.members.path, lazy: () => import('./routes/members').then(load) },
+            { path: paths.snapshots.path, lazy: () => import('./routes/snapshots').then(load) },
+            { path: paths.lineage.path, lazy: () => import('./routes/lineage').then(load) },
+            { path: paths.compare.path, lazy: () => import('./routes/compare').then(load) },
+            { path: paths.notes.path, lazy: () => import('./routes/notes').then(load) },
+            { path: paths.uploads.path, lazy: () => import('./routes/uploads').then(load) },
+            { path: paths.handoff.path, lazy: () => import('./routes/handoff').then(load) },
           ],
         },
         { path: '*', lazy: () => import('./routes/not-found').then(load) },

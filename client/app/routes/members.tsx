@@ -1,8 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
-import { buttonClass } from '../../components/button';
+import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Loading } from '../../components/page-status';
-import { paths } from '../../config/paths';
 import { useMe } from '../../features/auth/api/get-me';
 import { useInvitations } from '../../features/members/api/get-invitations';
 import { membersQueryOptions, useMembers } from '../../features/members/api/get-members';
@@ -29,15 +27,7 @@ export default function MembersRoute() {
   if (!room || !me) return <Loading />;
   return (
     <div className="flex max-w-3xl flex-col gap-6">
-      <RoomHeader
-        room={room}
-        subtitle="Members"
-        actions={
-          <Link to={paths.room.getHref(room.id)} className={buttonClass('secondary', 'sm')}>
-            Back to the room
-          </Link>
-        }
-      />
+      <RoomHeader room={room} subtitle="Members" />
       {isOwner ? (
         <section aria-labelledby="add-member-title" className="rounded-2xl border border-rule bg-card p-5 shadow-xs">
           <h2 id="add-member-title" className="mb-1 text-lg font-extrabold">

@@ -1,8 +1,6 @@
 import { lazy, Suspense } from 'react';
-import { Link, useParams } from 'react-router-dom';
-import { buttonClass } from '../../components/button';
+import { useParams } from 'react-router-dom';
 import { Loading } from '../../components/page-status';
-import { paths } from '../../config/paths';
 import { useRoom } from '../../features/rooms/api/get-room';
 import { RoomHeader } from '../../features/rooms/components/room-header';
 import { roomLoader } from '../room-loader';
@@ -21,14 +19,7 @@ export default function RoomRoute() {
   if (!room) return <Loading />;
   return (
     <div className="flex flex-col">
-      <RoomHeader
-        room={room}
-        actions={
-          <Link to={paths.members.getHref(room.id)} className={buttonClass('secondary', 'sm')}>
-            Members
-          </Link>
-        }
-      />
+      <RoomHeader room={room} />
       {/* A plain frame, so tests can find the workspace whatever it draws inside. */}
       <div data-testid="room-workspace" data-room-id={room.id}>
         <Suspense fallback={<Loading label="Loading the workspace…" />}>

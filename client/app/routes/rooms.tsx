@@ -3,6 +3,7 @@ import { useNavigate } from 'react-router-dom';
 import { paths } from '../../config/paths';
 import { roomsQueryOptions, useRooms } from '../../features/rooms/api/get-rooms';
 import { CreateRoomForm } from '../../features/rooms/components/create-room-form';
+import { ImportDesignForm } from '../../features/rooms/components/import-design-form';
 import { RoomList } from '../../features/rooms/components/room-list';
 import { Loading } from '../../components/page-status';
 import { isSignedIn } from '../auth-loader';
@@ -27,6 +28,15 @@ export default function RoomsRoute() {
         </h2>
         <p className="mb-4 text-sm text-ink-soft">A room holds one matching design: a load, a chain of elements and a port. You will be its owner.</p>
         <CreateRoomForm onCreated={(roomId) => navigate(paths.room.getHref(roomId))} />
+      </section>
+      <section aria-labelledby="import-design-title" className="rounded-2xl border border-rule bg-card p-5 shadow-xs">
+        <h2 id="import-design-title" className="mb-1 text-lg font-extrabold">
+          Import a design file
+        </h2>
+        <p className="mb-4 text-sm text-ink-soft">
+          Start a room from a <code className="numeric">.matchloom.json</code> (a hand-off pack holds one). You will be its owner.
+        </p>
+        <ImportDesignForm onCreated={(roomId) => navigate(paths.room.getHref(roomId))} />
       </section>
       <section aria-label="Room list">
         {rooms.data ? <RoomList rooms={rooms.data} /> : <Loading label="Loading your rooms…" />}

@@ -26,7 +26,7 @@ export default function SignUpRoute() {
         </>
       }
     >
-      <SignUpForm onSuccess={() => navigate(safeRedirect(redirectTo), { replace: true })} />
+      <SignUpForm defaultEmail={searchParams.get('email') ?? ''} onSuccess={() => navigate(safeRedirect(redirectTo), { replace: true })} />
     </AuthLayout>
   );
 }

@@ -6,11 +6,12 @@ import { FormError, TextField } from '../../../components/form-field';
 import { showServerErrors } from '../../../lib/form-errors';
 import { PASSWORD_MIN_LENGTH, signUpInputSchema, useSignUp, type SignUpInput } from '../api/sign-up';
 
-export function SignUpForm({ onSuccess }: { onSuccess: () => void }) {
+/** `defaultEmail`: the address to start from (an invitation's). */
+export function SignUpForm({ onSuccess, defaultEmail = '' }: { onSuccess: () => void; defaultEmail?: string }) {
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({
     resolver: zodResolver(signUpInputSchema),
-    defaultValues: { displayName: '', email: '', password: '' },
+    defaultValues: { displayName: '', email: defaultEmail, password: '' },
   });
   const signUp = useSignUp({
     onSuccess: () => onSuccess(),

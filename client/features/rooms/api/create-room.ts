@@ -12,8 +12,11 @@ export type CreateRoomInput = z.infer<typeof createRoomInputSchema>;
 
 const createdRoomSchema = z.looseObject({ id: z.string() });
 
-/** `POST /api/rooms`: 201 `{ id, ... }`; the creator is the room's owner. */
-export const createRoom = async (input: CreateRoomInput): Promise<{ id: string }> =>
+/**
+ * `POST /api/rooms`: 201 `{ id, ... }`; the creator is the room's owner. With `design` (an imported
+ * `.matchloom.json`), the room starts from it; a bad design is a 400 whose message names its JSON path.
+ */
+export const createRoom = async (input: CreateRoomInput & { design?: unknown }): Promise<{ id: string }> =>
   parseResponse(createdRoomSchema)(await api.post('/api/rooms', input));
 
 export function useCreateRoom(config: MutationConfig<typeof createRoom> = {}) {
