@@ -24,7 +24,7 @@ export const REPORT_PALETTE = {
   gridLabel: tint('#1e2b47', 0.72),
   goal: solid('#136560'),
   trace: solid('#d9962b'),
-  traceOutOfBand: tint('#d9962b', 0.45),
+  traceOutOfBand: tint('#d9962b', 0.6),
   traceDeep: solid('#8a5a0e'),
   band: tint('#d9962b', 0.14),
   white: solid('#ffffff'),

@@ -200,7 +200,7 @@ export function reportModel(input: ReportInput): ReportModel {
       row.value = fmt(e.value, b?.unit ?? '', { digits: 4 });
       if (b) row.build = `${fmt(b.nearest, b.unit)} (${b.series})`;
       row.tolerance = b?.toleranceText ?? '';
-      row.q = e.q !== undefined ? num(e.q) : 'ideal';
+      row.q = e.kind.endsWith('-r') ? '' : e.q !== undefined ? num(e.q) : 'ideal';
     } else if (isLine(e)) {
       const l = lineById.get(e.id);
       row.value = `${num(e.z0)} Ω, ${l ? `${num(l.degreesAtCenter, 4)}°` : DASH}`;

@@ -62,7 +62,7 @@ export function drawSmith(doc: Doc, text: PdfText, pic: SmithPicture): void {
   doc.save();
   doc.lineCap('round').lineJoin('round');
   if (pic.trace) {
-    for (const piece of pic.trace.outside) if (polyline(doc, piece)) stroke(doc, pic.trace.outsidePaint, 1.1);
+    for (const piece of pic.trace.outside) if (polyline(doc, piece)) stroke(doc, pic.trace.outsidePaint, 1.3);
     if (polyline(doc, pic.trace.inBand)) stroke(doc, pic.trace.paint, 3.2);
   }
   for (const seg of pic.path) if (polyline(doc, seg.points)) stroke(doc, seg.paint, 1.6);
@@ -115,7 +115,10 @@ export function drawSweep(doc: Doc, text: PdfText, pic: SweepPicture): void {
     doc.moveTo(p.x, pic.goal.y).lineTo(p.x + p.width, pic.goal.y).dash(4, { space: 2 });
     stroke(doc, pic.goal.paint, 1);
     doc.undash();
-    text.draw(pic.goal.text, p.x + p.width - 3, pic.goal.y - 2.5, { size: 6, weight: 'semibold', paint: pic.goal.paint }, 'right');
+    const label = { size: 6, weight: 'semibold' as const, paint: pic.goal.paint };
+    const w = text.width(pic.goal.text, label);
+    doc.rect(p.x + p.width - 5 - w, pic.goal.y - 9, w + 4, 7.5).fillColor(REPORT_PALETTE.paper.colour, 0.9).fill();
+    text.draw(pic.goal.text, p.x + p.width - 3, pic.goal.y - 2.5, label, 'right');
   }
   doc.save();
   doc.rect(p.x, p.y - 1, p.width, p.height + 2).clip();

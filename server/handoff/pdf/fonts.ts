@@ -2,18 +2,19 @@
  * The report's type: Nunito Sans, shipped with the application in @fontsource/nunito-sans (WOFF, which
  * pdfkit embeds and subsets), never fetched. Each weight comes in subset files (latin, latin-ext,
  * vietnamese, cyrillic, ...); `unicode.json` of the same package says which code points each covers, so
- * a room name in Polish or Ukrainian still prints. Should the files be missing, the standard Helvetica
+ * a room name in Polish or Ukrainian still prints. The WOFF files are decoded once (woff.ts). Should the files be missing, the standard Helvetica
  * (WinAnsi) stands in.
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
+import { woffToSfnt } from './woff';
 
 export type FontWeight = 'regular' | 'semibold' | 'bold';
 
 export interface FontFace {
   /** the name registered with pdfkit */
   name: string;
-  /** the font file's bytes, or null for a standard PDF font */
+  /** the face as TrueType bytes, or null for a standard PDF font */
   data: Buffer | null;
   /** covered code points, as sorted [lo, hi] ranges */
   ranges: [number, number][];
@@ -89,7 +90,7 @@ export function reportFonts(): FontSet {
         if (!range) continue;
         const file = require.resolve(`@fontsource/nunito-sans/files/nunito-sans-${subset}-${WEIGHTS[w]}-normal.woff`);
         if (!existsSync(file)) continue;
-        faces[w].push({ name: `nunito-${w}-${subset}`, data: readFileSync(file), ranges: parseUnicodeRange(range) });
+        faces[w].push({ name: `nunito-${w}-${subset}`, data: woffToSfnt(readFileSync(file)), ranges: parseUnicodeRange(range) });
       }
       if (faces[w].length === 0) throw new Error(`no Nunito Sans files for weight ${WEIGHTS[w]}`);
     }

@@ -201,17 +201,30 @@ function pictures(l: Layout, m: ReportModel, pics: ReportPictures): void {
   l.y = ly + 10;
 }
 
+/** The design summary in two columns of label and value. */
 function summary(l: Layout, m: ReportModel): void {
   l.heading('Design');
-  const labelW = 62;
-  for (const s of m.summary) {
-    const vs = style(7.8, P.ink);
-    const lines = l.text.wrap(s.value, vs, CONTENT_W - labelW);
-    l.need(lines.length * 10.5);
-    l.text.draw(s.label, PAGE.margin, l.y + 8, style(7.8, P.inkSoft, 'semibold'));
-    lines.forEach((line, i) => l.text.draw(line, PAGE.margin + labelW, l.y + 8 + i * 10.5, vs));
-    l.y += lines.length * 10.5;
-  }
+  const gap = 16;
+  const colW = (CONTENT_W - gap) / 2;
+  const labelW = 52;
+  const lh = 10.2;
+  const vs = style(7.6, P.ink);
+  const ls = style(7.6, P.inkSoft, 'semibold');
+  const half = Math.ceil(m.summary.length / 2);
+  const columns = [m.summary.slice(0, half), m.summary.slice(half)];
+  const wrapped = columns.map((col) => col.map((s) => ({ ...s, lines: l.text.wrap(s.value, vs, colW - labelW) })));
+  const height = Math.max(...wrapped.map((col) => col.reduce((a, s) => a + s.lines.length * lh, 0)));
+  l.need(height);
+  wrapped.forEach((col, c) => {
+    const x = PAGE.margin + c * (colW + gap);
+    let y = l.y;
+    for (const s of col) {
+      l.text.draw(s.label, x, y + 8, ls);
+      s.lines.forEach((line, i) => l.text.draw(line, x + labelW, y + 8 + i * lh, vs));
+      y += s.lines.length * lh;
+    }
+  });
+  l.y += height;
 }
 
 function elementTable(l: Layout, m: ReportModel): void {
