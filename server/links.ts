@@ -9,7 +9,8 @@ import type { Config } from './config';
 export function appBaseUrl(req: Request, config: Pick<Config, 'publicUrl'>): string {
   if (config.publicUrl) return config.publicUrl.replace(/\/+$/, '');
   const origin = req.get('origin');
-  if (origin && URL.canParse(origin) && /^https?:$/.test(new URL(origin).protocol)) return new URL(origin).origin;
+  if (origin && URL.canParse(origin) && /^https?:$/.test(new URL(origin).protocol))
+    return new URL(origin).origin;
   return `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 }
 

@@ -105,8 +105,7 @@ export async function seedDemo(
       roomId: whipRoom,
       authorId: users[2].userId,
       elementId: 'c-shunt',
-      body:
-        'Could ±5 % on C2 push the band edges past VSWR 1.5 once the enclosure detunes the whip? A yield run before the hand-off would settle it.',
+      body: 'Could ±5 % on C2 push the band edges past VSWR 1.5 once the enclosure detunes the whip? A yield run before the hand-off would settle it.',
       now: now - 2.5 * HOUR,
     });
 

@@ -57,7 +57,13 @@ export async function startFakeSmtpServer(options: { limit?: number } = {}): Pro
           const read = readMessage(Buffer.concat(chunks));
           const recipients = session.envelope.rcptTo.map((r) => r.address).join(', ');
           box = [
-            { to: recipients || read.to, subject: read.subject, text: read.text, html: read.html, sentAt: Date.now() },
+            {
+              to: recipients || read.to,
+              subject: read.subject,
+              text: read.text,
+              html: read.html,
+              sentAt: Date.now(),
+            },
             ...box,
           ].slice(0, limit);
           callback();

@@ -23,13 +23,21 @@ export interface Mailer {
   close(): Promise<void>;
 }
 
-export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom' | 'nodeEnv'>, logger: Logger): Promise<Mailer> {
+export async function createMailer(
+  config: Pick<Config, 'smtpUrl' | 'mailFrom' | 'nodeEnv'>,
+  logger: Logger,
+): Promise<Mailer> {
   const mailbox = config.smtpUrl ? null : await startFakeSmtpServer();
   if (mailbox && config.nodeEnv === 'production')
     logger.warn('SMTP_URL is not set: mail goes to the local fake mail server and is not delivered');
   const transport = config.smtpUrl
     ? nodemailer.createTransport(config.smtpUrl)
-    : nodemailer.createTransport({ host: mailbox!.host, port: mailbox!.port, secure: false, ignoreTLS: true });
+    : nodemailer.createTransport({
+        host: mailbox!.host,
+        port: mailbox!.port,
+        secure: false,
+        ignoreTLS: true,
+      });
 
   return {
     mailbox,

@@ -14,7 +14,10 @@ const ROLE_WORDS: Record<Role, string> = {
 };
 
 function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+  return s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  );
 }
 
 /** `2026-12-22 14:05 UTC` */
@@ -32,7 +35,12 @@ function mail(to: string, subject: string, paragraphs: string[]): OutgoingMail {
         : `<p>${escapeHtml(p).replace(/\n/g, '<br>')}</p>`,
     )
     .join('\n');
-  return { to, subject, text, html: `<!doctype html>\n<html><body style="font-family: sans-serif">\n${html}\n</body></html>\n` };
+  return {
+    to,
+    subject,
+    text,
+    html: `<!doctype html>\n<html><body style="font-family: sans-serif">\n${html}\n</body></html>\n`,
+  };
 }
 
 export function invitationMail(input: {
@@ -57,7 +65,8 @@ function figuresLine(f: DesignFigures | null): string | null {
   if (!f || !f.analysed || !f.worstInBand) return null;
   const parts = [`${f.partCount} part${f.partCount === 1 ? '' : 's'}`];
   if (f.worstInBand.vswr !== null) parts.push(`worst in-band VSWR ${f.worstInBand.vswr.toFixed(2)}`);
-  if (f.worstInBand.returnLossDb !== null) parts.push(`return loss ${f.worstInBand.returnLossDb.toFixed(1)} dB`);
+  if (f.worstInBand.returnLossDb !== null)
+    parts.push(`return loss ${f.worstInBand.returnLossDb.toFixed(1)} dB`);
   if (f.bandwidth) parts.push(`bandwidth ${formatEngineering(f.bandwidth.highHz - f.bandwidth.lowHz, 'Hz')}`);
   if (f.goalMet !== null) parts.push(f.goalMet ? 'goal met' : 'goal not met');
   return `Headline figures: ${parts.join(', ')}.`;

@@ -38,7 +38,8 @@ function splitHeaderBlock(raw: Buffer): Part {
     if (colon <= 0) continue;
     const name = line.slice(0, colon).trim().toLowerCase();
     // Raw 8-bit header bytes (SMTPUTF8) are read as UTF-8; plain ASCII is unchanged by this.
-    if (!headers.has(name)) headers.set(name, Buffer.from(line.slice(colon + 1).trim(), 'latin1').toString('utf8'));
+    if (!headers.has(name))
+      headers.set(name, Buffer.from(line.slice(colon + 1).trim(), 'latin1').toString('utf8'));
   }
   return { headers, body: raw.subarray(Math.min(raw.length, end + skip)) };
 }
@@ -128,12 +129,16 @@ function collectBodies(part: Part, out: { text: string | null; html: string | nu
   if (ct.type.startsWith('multipart/')) {
     const boundary = ct.params.get('boundary');
     if (!boundary || depth > 8) return;
-    for (const raw of splitMultipart(part.body, boundary)) collectBodies(splitHeaderBlock(raw), out, depth + 1);
+    for (const raw of splitMultipart(part.body, boundary))
+      collectBodies(splitHeaderBlock(raw), out, depth + 1);
     return;
   }
   if ((part.headers.get('content-disposition') ?? '').toLowerCase().startsWith('attachment')) return;
   const decoded = () =>
-    decodeCharset(decodeTransfer(part.body, part.headers.get('content-transfer-encoding')), ct.params.get('charset'));
+    decodeCharset(
+      decodeTransfer(part.body, part.headers.get('content-transfer-encoding')),
+      ct.params.get('charset'),
+    );
   if (ct.type === 'text/plain' && out.text === null) out.text = decoded();
   else if (ct.type === 'text/html' && out.html === null) out.html = decoded();
 }

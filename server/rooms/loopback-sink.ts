@@ -79,7 +79,9 @@ export function loopbackRoomSink(deps: LoopbackSinkDeps): RoomUpdateSink {
             reject(roomBusy(`the room socket closed: ${code} ${reason.toString() || ''}`.trim()));
           });
         });
-        await new Promise<void>((resolve, reject) => ws.send(message, (err) => (err ? reject(err) : resolve())));
+        await new Promise<void>((resolve, reject) =>
+          ws.send(message, (err) => (err ? reject(err) : resolve())),
+        );
         // Stored before it is broadcast: once the store holds it, every open client has it or is getting it.
         for (;;) {
           if (await storeHasUpdate(deps.knex, roomId, update)) return;
@@ -89,7 +91,8 @@ export function loopbackRoomSink(deps: LoopbackSinkDeps): RoomUpdateSink {
           await new Promise((r) => setTimeout(r, POLL_MS));
         }
       } finally {
-        if (ws.readyState === WebSocket.OPEN || ws.readyState === WebSocket.CONNECTING) ws.close(1000, 'done');
+        if (ws.readyState === WebSocket.OPEN || ws.readyState === WebSocket.CONNECTING)
+          ws.close(1000, 'done');
       }
     },
   };

@@ -9,7 +9,8 @@ import type { AppDeps } from '../app';
 export function devMailboxRoutes({ mailer }: AppDeps): Router {
   const r = Router();
   const box = () => {
-    if (!mailer.mailbox) throw notFound('There is no local mailbox: SMTP_URL is set, so mail goes to that server.');
+    if (!mailer.mailbox)
+      throw notFound('There is no local mailbox: SMTP_URL is set, so mail goes to that server.');
     return mailer.mailbox;
   };
 

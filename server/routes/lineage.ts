@@ -27,9 +27,14 @@ async function compareSide(
       return { ref, kind: 'live', roomId: room.id, label: room.name, createdAt: null, design };
     } catch (e) {
       if (e instanceof DesignError)
-        throw new HttpError(409, 'invalid-design', `The room document does not hold a valid design: ${e.message}`, {
-          path: e.path,
-        });
+        throw new HttpError(
+          409,
+          'invalid-design',
+          `The room document does not hold a valid design: ${e.message}`,
+          {
+            path: e.path,
+          },
+        );
       throw e;
     }
   }
@@ -59,7 +64,8 @@ export function lineageRoutes({ knex }: AppDeps): Router {
     const user = signedInUser(req);
     const { roomId } = await requireRoomRole(knex, req.params.id, user.id);
     const query = check(compareQuerySchema, { a: req.query.a, b: req.query.b }, 'query');
-    const room = (await knex('rooms').where({ id: roomId }).first('id', 'name')) as { id: string; name: string } | undefined;
+    const room = (await knex('rooms').where({ id: roomId }).first('id', 'name')) as
+      { id: string; name: string } | undefined;
     if (!room) throw roomNotFound();
     const a = await compareSide(knex, query.a, room, user.id);
     const b = await compareSide(knex, query.b, room, user.id);

@@ -57,7 +57,10 @@ export function memberRoutes({ knex, events, mailer, config, logger }: AppDeps):
       } catch (err) {
         // The invitation is kept; inviting the address again sends a new link.
         mailSent = false;
-        (req.log ?? logger).warn({ err, invitationId: result.invitation.id }, 'the invitation could not be mailed');
+        (req.log ?? logger).warn(
+          { err, invitationId: result.invitation.id },
+          'the invitation could not be mailed',
+        );
       }
       res.status(202).json({ invited: true, ...result.invitation, mailSent });
     }

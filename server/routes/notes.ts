@@ -31,7 +31,9 @@ export function noteRoutes({ knex, events }: AppDeps): Router {
       throw e;
     }
     if (!ids.includes(elementId))
-      throw badRequest(`elementId: there is no element “${elementId}” in this room’s chain`, { field: 'elementId' });
+      throw badRequest(`elementId: there is no element “${elementId}” in this room’s chain`, {
+        field: 'elementId',
+      });
   }
 
   r.get('/rooms/:id/notes', async (req, res) => {

@@ -33,7 +33,11 @@ export function snapshotRoutes(deps: AppDeps): Router {
   const r = Router();
 
   /** Mail the room's reviewers; a mail failure is logged, never the caller's error. */
-  async function askForReview(req: Request, snapshot: SnapshotView, requester: { id: string; displayName: string }) {
+  async function askForReview(
+    req: Request,
+    snapshot: SnapshotView,
+    requester: { id: string; displayName: string },
+  ) {
     await sendReviewRequests(deps, { snapshot, requester, baseUrl: appBaseUrl(req, config) });
   }
 
@@ -81,7 +85,10 @@ export function snapshotRoutes(deps: AppDeps): Router {
     const { snapshotId } = await requireSnapshotRole(knex, req.params.snapshotId, user.id);
     const snapshot = await getSnapshot(knex, snapshotId);
     if (!snapshot) throw snapshotNotFound();
-    const outcome = await restoreSnapshot({ knex, sink: deps.roomUpdates }, { roomId, snapshot, userId: user.id });
+    const outcome = await restoreSnapshot(
+      { knex, sink: deps.roomUpdates },
+      { roomId, snapshot, userId: user.id },
+    );
     if (outcome.undoSnapshot)
       events.emit(roomId, ROOM_EVENTS.snapshotCreated, { roomId, snapshot: outcome.undoSnapshot });
     if (outcome.changed)
@@ -96,13 +103,22 @@ export function snapshotRoutes(deps: AppDeps): Router {
 
   r.post('/snapshots/:id/branch', async (req, res) => {
     const user = signedInUser(req);
-    const { snapshotId, roomId: sourceRoomId } = await requireSnapshotRole(knex, req.params.id, user.id, EDITOR_ROLES);
+    const { snapshotId, roomId: sourceRoomId } = await requireSnapshotRole(
+      knex,
+      req.params.id,
+      user.id,
+      EDITOR_ROLES,
+    );
     const body = check(branchBodySchema, req.body);
     const members = body.copyMembers
       ? (await listMembers(knex, sourceRoomId)).map((m) => ({ userId: m.userId, role: m.role }))
       : undefined;
     const roomId = await branchFromSnapshot(knex, { snapshotId, name: body.name, userId: user.id, members });
-    events.emit(sourceRoomId, TEAM_EVENTS.branchCreated, { roomId: sourceRoomId, snapshotId, branchRoomId: roomId });
+    events.emit(sourceRoomId, TEAM_EVENTS.branchCreated, {
+      roomId: sourceRoomId,
+      snapshotId,
+      branchRoomId: roomId,
+    });
     res.status(201).json({ roomId, room: await getRoomDetails(knex, roomId, user.id) });
   });
 

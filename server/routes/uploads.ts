@@ -29,7 +29,11 @@ function uploadError(err: unknown): HttpError {
   if (err instanceof multer.MulterError) {
     switch (err.code) {
       case 'LIMIT_FILE_SIZE':
-        return new HttpError(413, 'too-large', `The file is larger than the ${formatBytes(UPLOAD_MAX_BYTES)} limit.`);
+        return new HttpError(
+          413,
+          'too-large',
+          `The file is larger than the ${formatBytes(UPLOAD_MAX_BYTES)} limit.`,
+        );
       case 'LIMIT_UNEXPECTED_FILE':
       case 'LIMIT_FILE_COUNT':
         return badRequest(
@@ -40,7 +44,11 @@ function uploadError(err: unknown): HttpError {
         return new HttpError(400, 'bad-request', `The upload could not be read: ${err.message}.`);
     }
   }
-  return new HttpError(400, 'bad-request', `The upload could not be read: ${(err as Error)?.message ?? 'malformed multipart body'}.`);
+  return new HttpError(
+    400,
+    'bad-request',
+    `The upload could not be read: ${(err as Error)?.message ?? 'malformed multipart body'}.`,
+  );
 }
 
 function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> {

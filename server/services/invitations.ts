@@ -41,13 +41,25 @@ export const invitationNotFound = () =>
     'This invitation link is not valid: it may have been replaced by a newer invitation, or the room was deleted. Ask the room’s owner to invite you again.',
   );
 
-async function findInvitation(knex: Knex | Knex.Transaction, token: unknown): Promise<InvitationRecord | null> {
+async function findInvitation(
+  knex: Knex | Knex.Transaction,
+  token: unknown,
+): Promise<InvitationRecord | null> {
   if (typeof token !== 'string' || !TOKEN_FORMAT.test(token)) return null;
   const row = await knex('invitations as i')
     .join('rooms as r', 'r.id', 'i.room_id')
     .leftJoin('users as u', 'u.id', 'i.invited_by')
     .where('i.token_hash', hashInvitationToken(token))
-    .first('i.id', 'i.room_id', 'r.name as room_name', 'i.email', 'i.role', 'u.display_name', 'i.expires_at', 'i.used_at');
+    .first(
+      'i.id',
+      'i.room_id',
+      'r.name as room_name',
+      'i.email',
+      'i.role',
+      'u.display_name',
+      'i.expires_at',
+      'i.used_at',
+    );
   if (!row || !isRole(row.role)) return null;
   return {
     id: row.id,

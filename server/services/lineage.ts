@@ -91,7 +91,9 @@ export async function roomLineage(knex: Knex, roomId: string, userId: string): P
   );
   const rooms: LineageRoom[] = [];
   for (const link of links) {
-    const parent = link.parentSnapshotId ? { snapshotId: link.parentSnapshotId, roomId: link.parentRoomId } : null;
+    const parent = link.parentSnapshotId
+      ? { snapshotId: link.parentSnapshotId, roomId: link.parentRoomId }
+      : null;
     const m = mine.get(link.id);
     if (!m || !isRole(m.role)) {
       rooms.push({ id: link.id, member: false, parent });

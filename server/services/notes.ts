@@ -84,8 +84,13 @@ export async function listNotes(knex: Knex | Knex.Transaction, roomId: string): 
   return rows.map(toNote);
 }
 
-export async function getNote(knex: Knex | Knex.Transaction, roomId: string, noteId: string): Promise<Note | null> {
-  const row = (await noteQuery(knex).where({ 'n.id': noteId, 'n.room_id': roomId }).first()) as NoteRow | undefined;
+export async function getNote(
+  knex: Knex | Knex.Transaction,
+  roomId: string,
+  noteId: string,
+): Promise<Note | null> {
+  const row = (await noteQuery(knex).where({ 'n.id': noteId, 'n.room_id': roomId }).first()) as
+    NoteRow | undefined;
   return row ? toNote(row) : null;
 }
 
@@ -105,10 +110,15 @@ export async function createNote(knex: Knex, input: NewNote): Promise<Note> {
     let parentId: string | null = null;
     if (input.parentId !== undefined) {
       if (input.elementId !== undefined || input.frequencyHz !== undefined)
-        throw badRequest('elementId: a reply is pinned where its thread is; leave out elementId and frequencyHz', {
-          field: input.elementId !== undefined ? 'elementId' : 'frequencyHz',
-        });
-      const parent = await trx('notes').where({ id: input.parentId, room_id: input.roomId }).first('id', 'parent_id');
+        throw badRequest(
+          'elementId: a reply is pinned where its thread is; leave out elementId and frequencyHz',
+          {
+            field: input.elementId !== undefined ? 'elementId' : 'frequencyHz',
+          },
+        );
+      const parent = await trx('notes')
+        .where({ id: input.parentId, room_id: input.roomId })
+        .first('id', 'parent_id');
       if (!parent) throw badRequest('parentId: there is no such note in this room', { field: 'parentId' });
       parentId = parent.parent_id ?? parent.id;
     }
@@ -148,7 +158,8 @@ export async function updateNote(
     }
     const now = Date.now();
     const change: Record<string, unknown> = {};
-    if (input.body !== undefined && input.body !== note.body) Object.assign(change, { body: input.body, updated_at: now });
+    if (input.body !== undefined && input.body !== note.body)
+      Object.assign(change, { body: input.body, updated_at: now });
     if (input.resolved !== undefined && input.resolved !== note.resolved)
       Object.assign(
         change,
@@ -167,11 +178,15 @@ export async function deleteNote(
   input: { roomId: string; noteId: string; userId: string; role: Role },
 ): Promise<string[]> {
   return knex.transaction(async (trx) => {
-    const note = await trx('notes').where({ id: input.noteId, room_id: input.roomId }).first('id', 'author_id');
+    const note = await trx('notes')
+      .where({ id: input.noteId, room_id: input.roomId })
+      .first('id', 'author_id');
     if (!note) throw noteNotFound();
     if (note.author_id !== input.userId && input.role !== 'owner')
       throw forbidden('Only the author or an owner can delete a note.');
-    const replies = (await trx('notes').where({ room_id: input.roomId, parent_id: note.id }).pluck('id')) as string[];
+    const replies = (await trx('notes')
+      .where({ room_id: input.roomId, parent_id: note.id })
+      .pluck('id')) as string[];
     const ids = [note.id as string, ...replies];
     await trx('notes').whereIn('id', ids).delete();
     return ids;

@@ -17,7 +17,8 @@ export async function sendReviewRequests(
   const { snapshot } = input;
   const room = await deps.knex('rooms').where({ id: snapshot.roomId }).first('name');
   if (!room) return 0;
-  const recipients = (await deps.knex('room_members as m')
+  const recipients = (await deps
+    .knex('room_members as m')
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.room_id', snapshot.roomId)
     .andWhere('u.notify_reviews', true)

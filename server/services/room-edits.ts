@@ -96,7 +96,11 @@ export async function restoreSnapshot(
   if (before && sameApartFromName(before, input.snapshot.design))
     return { changed: false, undoSnapshot: null, design: before };
   const undoSnapshot = before
-    ? await createSnapshot(deps.knex, { roomId: input.roomId, label: undoLabel(input.snapshot.label), userId: input.userId })
+    ? await createSnapshot(deps.knex, {
+        roomId: input.roomId,
+        label: undoLabel(input.snapshot.label),
+        userId: input.userId,
+      })
     : null;
   const { changed } = await editRoomDocument(deps, input.roomId, input.userId, (doc) =>
     writeDesignOver(doc, input.snapshot.design),
@@ -116,7 +120,11 @@ function sweepWithin(design: Design, upload: UploadWithText): Design['sweep'] | 
       `“${upload.fileName}” covers ${hz(upload.startHz)}–${hz(upload.stopHz)}, but the band ${hz(band.startHz)}–${hz(band.stopHz)} reaches outside it. Measure across the whole band, or narrow the band first.`,
     );
   if (sweep.startHz >= upload.startHz && sweep.stopHz <= upload.stopHz) return null;
-  return { ...sweep, startHz: Math.max(sweep.startHz, upload.startHz), stopHz: Math.min(sweep.stopHz, upload.stopHz) };
+  return {
+    ...sweep,
+    startHz: Math.max(sweep.startHz, upload.startHz),
+    stopHz: Math.min(sweep.stopHz, upload.stopHz),
+  };
 }
 
 function wrongPorts(upload: UploadWithText, as: 'load' | 'two-port'): HttpError {
@@ -149,14 +157,25 @@ export interface UseUploadOutcome {
  */
 export async function useUpload(
   deps: RoomEditDeps,
-  input: { roomId: string; upload: UploadWithText; as: 'load' | 'two-port'; elementId?: string; userId: string },
+  input: {
+    roomId: string;
+    upload: UploadWithText;
+    as: 'load' | 'two-port';
+    elementId?: string;
+    userId: string;
+  },
 ): Promise<UseUploadOutcome> {
   const { upload } = input;
   if ((input.as === 'load') !== (upload.ports === 1)) throw wrongPorts(upload, input.as);
   if (input.as === 'load' && input.elementId !== undefined)
-    throw new HttpError(400, 'invalid-input', 'elementId: only a two-port element replaces an element; a load has none', {
-      field: 'elementId',
-    });
+    throw new HttpError(
+      400,
+      'invalid-input',
+      'elementId: only a two-port element replaces an element; a load has none',
+      {
+        field: 'elementId',
+      },
+    );
 
   const { result } = await editRoomDocument(deps, input.roomId, input.userId, (doc) => {
     let design: Design;

@@ -31,7 +31,11 @@ export function cleanFileName(name: string): string {
 
 function decodeText(bytes: Buffer, fileName: string): string {
   if (bytes.includes(0))
-    throw new HttpError(400, 'not-text', `“${fileName}” is not a text file; a Touchstone file is plain text.`);
+    throw new HttpError(
+      400,
+      'not-text',
+      `“${fileName}” is not a text file; a Touchstone file is plain text.`,
+    );
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {
@@ -143,8 +147,9 @@ export async function getUpload(
   roomId: string,
   uploadId: string,
 ): Promise<UploadWithText | null> {
-  const row = (await uploadQuery(knex).select('up.text').where({ 'up.id': uploadId, 'up.room_id': roomId }).first()) as
-    | (UploadRow & { text: string })
-    | undefined;
+  const row = (await uploadQuery(knex)
+    .select('up.text')
+    .where({ 'up.id': uploadId, 'up.room_id': roomId })
+    .first()) as (UploadRow & { text: string }) | undefined;
   return row ? { ...toUpload(row), text: row.text } : null;
 }

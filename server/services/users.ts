@@ -79,7 +79,8 @@ export async function getAccount(
   knex: Knex | Knex.Transaction,
   id: string,
 ): Promise<(PublicUser & { notifyReviews: boolean }) | null> {
-  const row = (await knex('users').where({ id }).first()) as (UserRow & { notify_reviews: number | boolean }) | undefined;
+  const row = (await knex('users').where({ id }).first()) as
+    (UserRow & { notify_reviews: number | boolean }) | undefined;
   return row ? { ...toPublic(row), notifyReviews: Boolean(row.notify_reviews) } : null;
 }
 

@@ -136,7 +136,9 @@ export function designDiff(a: Design, b: Design): DesignDiff {
 
   const aIndex = new Map(a.elements.map((e, i) => [e.id, i]));
   const bIndex = new Map(b.elements.map((e, i) => [e.id, i]));
-  const removed = a.elements.flatMap((e, index) => (bIndex.has(e.id) ? [] : [{ id: e.id, index, element: e }]));
+  const removed = a.elements.flatMap((e, index) =>
+    bIndex.has(e.id) ? [] : [{ id: e.id, index, element: e }],
+  );
   const added = b.elements.flatMap((e, index) => (aIndex.has(e.id) ? [] : [{ id: e.id, index, element: e }]));
 
   const changed: ElementChange[] = [];
@@ -155,6 +157,10 @@ export function designDiff(a: Design, b: Design): DesignDiff {
   );
 
   const identical =
-    fields.length === 0 && added.length === 0 && removed.length === 0 && changed.length === 0 && moved.length === 0;
+    fields.length === 0 &&
+    added.length === 0 &&
+    removed.length === 0 &&
+    changed.length === 0 &&
+    moved.length === 0;
   return { fields, added, removed, changed, moved, identical };
 }

@@ -8,7 +8,9 @@ import { apiRoleSchema } from './common';
 import { snapshotSchema } from './snapshots';
 
 /** roomId is null when the parent snapshot's room was deleted. */
-export const lineageParentSchema = z.object({ snapshotId: z.string(), roomId: z.string().nullable() }).nullable();
+export const lineageParentSchema = z
+  .object({ snapshotId: z.string(), roomId: z.string().nullable() })
+  .nullable();
 
 export const lineageMemberRoomSchema = z.object({
   id: z.string(),
@@ -25,7 +27,10 @@ export const lineageHiddenRoomSchema = z.object({
   member: z.literal(false),
   parent: lineageParentSchema,
 });
-export const lineageRoomSchema = z.discriminatedUnion('member', [lineageMemberRoomSchema, lineageHiddenRoomSchema]);
+export const lineageRoomSchema = z.discriminatedUnion('member', [
+  lineageMemberRoomSchema,
+  lineageHiddenRoomSchema,
+]);
 export type LineageRoom = z.infer<typeof lineageRoomSchema>;
 
 export const lineageSchema = z.object({

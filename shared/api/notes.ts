@@ -16,10 +16,17 @@ export const noteTextSchema = z
 /** `POST /api/rooms/:id/notes`. A reply (`parentId`) sits in its thread and takes no pin of its own. */
 export const noteCreateBodySchema = jsonBody({
   body: noteTextSchema,
-  elementId: z.string({ error: 'must be a string' }).min(1, 'must not be empty').max(100, 'must be at most 100 characters').optional(),
+  elementId: z
+    .string({ error: 'must be a string' })
+    .min(1, 'must not be empty')
+    .max(100, 'must be at most 100 characters')
+    .optional(),
   frequencyHz: z
     .number({ error: 'must be a number of hertz' })
-    .refine((v) => Number.isFinite(v) && v > 0 && v <= 1e13, 'must be a positive frequency in hertz (at most 10 THz)')
+    .refine(
+      (v) => Number.isFinite(v) && v > 0 && v <= 1e13,
+      'must be a positive frequency in hertz (at most 10 THz)',
+    )
     .optional(),
   parentId: apiIdSchema.optional(),
 });
@@ -29,7 +36,9 @@ export type NoteCreateBody = z.infer<typeof noteCreateBodySchema>;
 export const notePatchBodySchema = jsonBody({
   body: noteTextSchema.optional(),
   resolved: z.boolean({ error: 'must be true or false' }).optional(),
-}).refine((b) => b.body !== undefined || b.resolved !== undefined, { message: 'give "body" or "resolved" (or both)' });
+}).refine((b) => b.body !== undefined || b.resolved !== undefined, {
+  message: 'give "body" or "resolved" (or both)',
+});
 export type NotePatchBody = z.infer<typeof notePatchBodySchema>;
 
 export const noteSchema = z.object({

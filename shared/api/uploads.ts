@@ -26,7 +26,11 @@ export type UploadWithText = z.infer<typeof uploadWithTextSchema>;
 /** `POST /api/rooms/:id/uploads/:uploadId/use`. `elementId` (two-port only) names the element to replace. */
 export const uploadUseBodySchema = jsonBody({
   as: z.enum(['load', 'two-port'], { error: 'must be "load" or "two-port"' }),
-  elementId: z.string({ error: 'must be a string' }).min(1, 'must not be empty').max(100, 'must be at most 100 characters').optional(),
+  elementId: z
+    .string({ error: 'must be a string' })
+    .min(1, 'must not be empty')
+    .max(100, 'must be at most 100 characters')
+    .optional(),
 });
 export type UploadUseBody = z.infer<typeof uploadUseBodySchema>;
 

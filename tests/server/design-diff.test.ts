@@ -47,7 +47,14 @@ describe('fieldChanges', () => {
 describe('designDiff', () => {
   it('designDiff(d, d) is identical and empty', () => {
     const d = design(whipE12Design());
-    expect(designDiff(d, d)).toEqual({ fields: [], added: [], removed: [], changed: [], moved: [], identical: true });
+    expect(designDiff(d, d)).toEqual({
+      fields: [],
+      added: [],
+      removed: [],
+      changed: [],
+      moved: [],
+      identical: true,
+    });
   });
 
   it('designDiff of the whip "first cut" and "E12 values" snapshots names the changed values, Q and tolerances', () => {
@@ -100,8 +107,12 @@ describe('designDiff', () => {
       { id: 't1', kind: 'transformer', ratio: 2 },
     ]);
     const diff = designDiff(a, b);
-    expect(diff.removed).toEqual([{ id: 'l1', index: 1, element: { id: 'l1', kind: 'shunt-l', value: 2e-9 } }]);
-    expect(diff.added).toEqual([{ id: 't1', index: 1, element: { id: 't1', kind: 'transformer', ratio: 2 } }]);
+    expect(diff.removed).toEqual([
+      { id: 'l1', index: 1, element: { id: 'l1', kind: 'shunt-l', value: 2e-9 } },
+    ]);
+    expect(diff.added).toEqual([
+      { id: 't1', index: 1, element: { id: 't1', kind: 'transformer', ratio: 2 } },
+    ]);
     expect(diff.changed).toEqual([]);
     expect(diff.moved).toEqual([]);
   });

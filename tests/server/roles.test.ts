@@ -13,6 +13,7 @@ const ACTORS: Actor[] = ['owner', 'tuner', 'observer', 'stranger', 'anonymous'];
 interface Fixture {
   roomId: string;
   snapshotId: string;
+  uploadId: string;
   observerId: string;
   extraId: string;
 }
@@ -101,6 +102,42 @@ const CASES: Case[] = [
     body: { name: 'Branch' },
     expected: editors(201),
   },
+  {
+    name: 'PATCH snapshot',
+    method: 'patch',
+    path: (f) => `/api/snapshots/${f.snapshotId}`,
+    body: { label: 'renamed' },
+    expected: editors(200),
+  },
+  {
+    name: 'POST restore',
+    method: 'post',
+    path: (f) => `/api/rooms/${f.roomId}/snapshots/${f.snapshotId}/restore`,
+    expected: editors(200),
+  },
+  { name: 'GET lineage', method: 'get', path: (f) => `/api/rooms/${f.roomId}/lineage`, expected: any(200) },
+  {
+    name: 'GET compare',
+    method: 'get',
+    path: (f) => `/api/rooms/${f.roomId}/compare?a=${f.snapshotId}&b=live`,
+    expected: any(200),
+  },
+  { name: 'GET notes', method: 'get', path: (f) => `/api/rooms/${f.roomId}/notes`, expected: any(200) },
+  {
+    name: 'POST note',
+    method: 'post',
+    path: (f) => `/api/rooms/${f.roomId}/notes`,
+    body: { body: 'a remark' },
+    expected: any(201),
+  },
+  { name: 'GET uploads', method: 'get', path: (f) => `/api/rooms/${f.roomId}/uploads`, expected: any(200) },
+  {
+    name: 'POST use upload',
+    method: 'post',
+    path: (f) => `/api/rooms/${f.roomId}/uploads/${f.uploadId}/use`,
+    body: { as: 'load' },
+    expected: editors(200),
+  },
 ];
 
 let server: TestServer;
@@ -133,7 +170,11 @@ async function fixture(): Promise<Fixture> {
     await owner.post(`/api/rooms/${roomId}/members`).send({ email: ids[who].email, role }).expect(201);
   const snapshotId = (await owner.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'base' }).expect(201))
     .body.id;
-  return { roomId, snapshotId, observerId: ids.observer.id, extraId: ids.extra.id };
+  const s1p = `# GHz S RI R 50\n${Array.from({ length: 11 }, (_, i) => `${(2 + i * 0.1).toFixed(1)} 0.2 0.1`).join('\n')}\n`;
+  const uploadId = (
+    await owner.post(`/api/rooms/${roomId}/uploads`).attach('file', Buffer.from(s1p), 'load.s1p').expect(201)
+  ).body.id;
+  return { roomId, snapshotId, uploadId, observerId: ids.observer.id, extraId: ids.extra.id };
 }
 
 describe('role matrix', () => {

@@ -9,6 +9,7 @@ import {
   chipAntennaDesign,
 } from '../../shared/demo/designs';
 import { parseDesign } from '../../shared/rf/design';
+import { CHIP_ANTENNA_S1P_NAME, chipAntennaTouchstone } from '../../shared/demo/chip-antenna-touchstone';
 import { signIn, startTestServer, type TestServer } from './helpers/test-server';
 
 let server: TestServer;
@@ -72,6 +73,39 @@ describe('demo seed', () => {
     expect(branch.parent).toMatchObject({ snapshotLabel: 'E12 values', roomName: WHIP_ROOM });
   });
 
+  it('keeps an invented bench .s1p of the chip antenna among its uploads (not in use) and an observer’s note on the whip', async () => {
+    const agent = await signIn(server, 'observer@demo.test', DEMO_PASSWORD);
+    const rooms = (await agent.get('/api/rooms')).body as { id: string; name: string }[];
+    const chip = rooms.find((r) => r.name === CHIP_ANTENNA_ROOM)!;
+    const uploads = (await agent.get(`/api/rooms/${chip.id}/uploads`).expect(200)).body;
+    expect(uploads).toEqual([
+      expect.objectContaining({
+        fileName: CHIP_ANTENNA_S1P_NAME,
+        ports: 1,
+        points: 141,
+        startHz: 1.8e9,
+        stopHz: 3.2e9,
+        uploadedBy: expect.objectContaining({ displayName: 'Demo Tuner' }),
+      }),
+    ]);
+    const full = (await agent.get(`/api/rooms/${chip.id}/uploads/${uploads[0].id}`).expect(200)).body;
+    expect(full.text).toBe(chipAntennaTouchstone());
+    expect((await agent.get(`/api/rooms/${chip.id}/design`).expect(200)).body.load.kind).toBe('rlc');
+    expect((await agent.get(`/api/rooms/${chip.id}/notes`).expect(200)).body).toEqual([]);
+
+    const whip = rooms.find((r) => r.name === WHIP_ROOM)!;
+    const notes = (await agent.get(`/api/rooms/${whip.id}/notes`).expect(200)).body;
+    expect(notes).toHaveLength(1);
+    expect(notes[0]).toMatchObject({
+      author: { displayName: 'Demo Observer' },
+      elementId: 'c-shunt',
+      parentId: null,
+      resolved: false,
+    });
+    const design = (await agent.get(`/api/rooms/${whip.id}/design`).expect(200)).body;
+    expect(design.elements.map((e: { id: string }) => e.id)).toContain('c-shunt');
+  });
+
   it('a second start on the same database does not duplicate anything', async () => {
     const count = async (t: string) => Number((await server.knex(t).count({ n: '*' }).first())!.n);
     const before = {
@@ -79,8 +113,10 @@ describe('demo seed', () => {
       rooms: await count('rooms'),
       snapshots: await count('snapshots'),
       members: await count('room_members'),
+      uploads: await count('uploads'),
+      notes: await count('notes'),
     };
-    expect(before).toEqual({ users: 3, rooms: 3, snapshots: 2, members: 9 });
+    expect(before).toEqual({ users: 3, rooms: 3, snapshots: 2, members: 9, uploads: 1, notes: 1 });
     const again = await startServer({ ...server.config }, { clientDir: null });
     try {
       const after = {
@@ -88,6 +124,8 @@ describe('demo seed', () => {
         rooms: await count('rooms'),
         snapshots: await count('snapshots'),
         members: await count('room_members'),
+        uploads: await count('uploads'),
+        notes: await count('notes'),
       };
       expect(after).toEqual(before);
     } finally {

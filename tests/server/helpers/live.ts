@@ -9,7 +9,11 @@ import { io, type Socket } from 'socket.io-client';
 import { ROOM_EVENTS } from '../../../shared/collab/events';
 
 /** Poll `check` until it returns a value other than undefined/false (or throw after `timeoutMs`). */
-export async function waitFor<T>(check: () => T | Promise<T>, what: string, timeoutMs = 8000): Promise<Exclude<T, false | undefined>> {
+export async function waitFor<T>(
+  check: () => T | Promise<T>,
+  what: string,
+  timeoutMs = 8000,
+): Promise<Exclude<T, false | undefined>> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const v = await check();
