@@ -20,7 +20,8 @@
  * as drawn at the first draw (after the event) whose probe is at or above the value of event i.
  *
  * Options: --events N (default 240), --interval MS (default 16), --keep-screens (screenshots to
- * e2e/screenshots/bench-ui-*.png). Prints a table; exits 0 whatever the numbers (targets are
+ * e2e/screenshots/bench-ui-*.png), --profile (the tuner page's main-thread CPU profile during the
+ * drag, summarised by function; most useful on a build made with `vite build --minify false`). Prints a table; exits 0 whatever the numbers (targets are
  * reported, not enforced).
  */
 import { parseArgs } from 'node:util';
@@ -36,6 +37,7 @@ const { values: args } = parseArgs({
     events: { type: 'string', default: '240' },
     interval: { type: 'string', default: '16' },
     'keep-screens': { type: 'boolean', default: false },
+    profile: { type: 'boolean', default: false },
   },
 });
 const EVENTS = Math.max(10, Number(args.events));
@@ -82,16 +84,19 @@ interface PageLog {
   input: { t: number }[];
   chart: DrawRecord[];
   plot: DrawRecord[];
+  requested: { at: number; seq: number }[];
+  analysed: { at: number; seq: number }[];
 }
 
 /** Installed before any page script: the draw hooks and a log of pointer moves. */
 function installHooks(draggedId: string) {
   const w = window as unknown as Record<string, unknown>;
-  const log: PageLog = { input: [], chart: [], plot: [] };
+  const log: PageLog = { input: [], chart: [], plot: [], requested: [], analysed: [] };
   w.__benchLog = log;
   w.__mlDrawn = {};
   w.__mlProbe = (d: { elements: { id: string; value?: number }[] }) => d.elements.find((e) => e.id === draggedId)?.value ?? null;
   w.__mlOnDrawn = (which: 'chart' | 'plot', rec: DrawRecord) => log[which].push(rec);
+  w.__mlOnStage = (stage: 'requested' | 'analysed', rec: { at: number; seq: number }) => log[stage].push(rec);
   window.addEventListener('pointermove', (e) => log.input.push({ t: performance.timeOrigin + e.timeStamp }), { capture: true });
 }
 
@@ -145,6 +150,66 @@ function row(name: string, target: number, r: { ms: number[]; missed: number }) 
   );
 }
 
+/**
+ * Where the tuner's time goes, per event: pointer event → the design reaching useAnalysis
+ * ("requested"; the document edit and a React render), → its result back from the engine worker
+ * ("analysed"; waiting behind the previous request plus the analysis), → the chart drawn.
+ */
+function breakdown(events: { t: number }[], log: PageLog) {
+  const toReq: number[] = [];
+  const toResult: number[] = [];
+  const toDraw: number[] = [];
+  for (const ev of events) {
+    const req = log.requested.find((r) => r.at >= ev.t);
+    if (!req) continue;
+    toReq.push(req.at - ev.t);
+    // the request that carried this edit may have been superseded; follow the next one analysed
+    const done = log.analysed.find((r) => r.seq >= req.seq);
+    if (!done) continue;
+    toResult.push(done.at - req.at);
+    const drawn = log.chart.find((d) => d.seq >= done.seq && d.at >= done.at);
+    if (drawn) toDraw.push(drawn.at - done.at);
+  }
+  const stat = (xs: number[]) => {
+    const s = [...xs].sort((a, b) => a - b);
+    return `p50 ${percentile(s, 0.5).toFixed(1)}  p95 ${percentile(s, 0.95).toFixed(1)}  (n ${s.length})`;
+  };
+  const analysedSeqs = log.analysed.length;
+  const requested = log.requested.length;
+  console.log(`\ntuner breakdown (ms): requests ${requested}, results ${analysedSeqs} (the rest superseded while waiting)`);
+  console.log(`  event → design reaches useAnalysis   ${stat(toReq)}`);
+  console.log(`  → result back from the engine        ${stat(toResult)}`);
+  console.log(`  → chart drawn                        ${stat(toDraw)}`);
+}
+
+interface CpuProfile {
+  nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; children?: number[] }[];
+  samples: number[];
+  timeDeltas: number[];
+}
+
+/** Self time by function (top 25), and by source file. */
+function printProfile(p: CpuProfile) {
+  const byId = new Map(p.nodes.map((n) => [n.id, n]));
+  const self = new Map<number, number>();
+  p.samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (p.timeDeltas[i] ?? 0) / 1000));
+  const byFn = new Map<string, number>();
+  const byFile = new Map<string, number>();
+  let total = 0;
+  for (const [id, ms] of self) {
+    const f = byId.get(id)!.callFrame;
+    const file = f.url.split('/').pop() || '(native)';
+    const key = `${f.functionName || '(anonymous)'}  ${file}:${f.lineNumber + 1}`;
+    byFn.set(key, (byFn.get(key) ?? 0) + ms);
+    byFile.set(file, (byFile.get(file) ?? 0) + ms);
+    total += ms;
+  }
+  console.log(`\ntuner main thread, ${total.toFixed(0)} ms sampled; self time by function:`);
+  for (const [k, ms] of [...byFn].sort((a, b) => b[1] - a[1]).slice(0, 25)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
+  console.log('by file:');
+  for (const [k, ms] of [...byFile].sort((a, b) => b[1] - a[1]).slice(0, 8)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
+}
+
 async function main() {
   console.log(`bench:ui — ${EVENTS} pointer moves, one every ${INTERVAL} ms`);
   const server = await startTestServer();
@@ -175,18 +240,23 @@ async function main() {
     if (!box) throw new Error('no chain canvas');
     const layout = chainLayout(10);
     const offsetX = Math.max(0, Math.floor((box.width - layout.width) / 2));
-    const x0 = box.x + offsetX + layout.cellX(DRAGGED_INDEX) + CELL_WIDTH / 2;
-    const y0 = box.y + 32;
+    // whole pixels, so that the page sees exactly the drag distances the values below assume
+    const x0 = Math.round(box.x + offsetX + layout.cellX(DRAGGED_INDEX) + CELL_WIDTH / 2);
+    const y0 = Math.round(box.y + 32);
 
     const clear = (p: Page) => p.evaluate(() => {
       const log = (window as unknown as { __benchLog: PageLog }).__benchLog;
-      log.input.length = 0;
-      log.chart.length = 0;
-      log.plot.length = 0;
+      for (const k of ['input', 'chart', 'plot', 'requested', 'analysed'] as const) log[k].length = 0;
     });
     await a.page.mouse.move(x0, y0);
     await clear(a.page);
     await clear(b.page);
+    const cdp = args.profile ? await a.context.newCDPSession(a.page) : null;
+    if (cdp) {
+      await cdp.send('Profiler.enable');
+      await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+      await cdp.send('Profiler.start');
+    }
     await a.page.mouse.down();
     for (let i = 1; i <= EVENTS; i++) {
       await a.page.mouse.move(x0, y0 - i * PIXELS_PER_EVENT);
@@ -198,6 +268,7 @@ async function main() {
     }
     await a.page.mouse.up();
     await new Promise((r) => setTimeout(r, 1500));
+    if (cdp) printProfile((await cdp.send('Profiler.stop')).profile as CpuProfile);
 
     const logA = (await a.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
     const logB = (await b.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
@@ -229,6 +300,8 @@ async function main() {
     row('tuner: pointer event → sweep plot redrawn', 16, plotA);
     row('tuner: pointer event → chart and plot redrawn', 16, both);
     row('observer: tuner’s event → chart redrawn', 50, chartB);
+
+    breakdown(events, logA);
 
     for (const s of [a, b]) s.assertClean();
     if (args['keep-screens']) {

@@ -9,7 +9,8 @@
  *   probe — window.__mlProbe?.(design) for the design that result was computed from (the bench sets
  *           a probe that reads the value it is dragging, e.g. d => d.elements[3].value)
  * It also calls window.__mlOnDrawn?.(which, record) and leaves a performance mark "ml:chart-drawn" /
- * "ml:plot-drawn". Nothing is recorded until the page defines window.__mlDrawn (the bench does), so
+ * "ml:plot-drawn". For a breakdown, useAnalysis calls window.__mlOnStage?.(stage, { at, seq }) with
+ * stage "requested" (the design went to the engine) and "analysed" (its result came back). Nothing is recorded until the page defines window.__mlDrawn (the bench does), so
  * normal use pays one property check per draw.
  */
 import type { Design } from '../../../../shared/rf/design';
@@ -23,6 +24,7 @@ export interface DrawRecord {
 interface BenchWindow {
   __mlDrawn?: { chart?: DrawRecord; plot?: DrawRecord };
   __mlOnDrawn?: (which: 'chart' | 'plot', record: DrawRecord) => void;
+  __mlOnStage?: (stage: 'requested' | 'analysed', record: { at: number; seq: number }) => void;
   __mlProbe?: (design: Design) => unknown;
 }
 
@@ -56,4 +58,12 @@ export function markDrawn(which: 'chart' | 'plot', result: object | null): void 
   w.__mlDrawn[which] = record;
   performance.mark(`ml:${which}-drawn`);
   w.__mlOnDrawn?.(which, record);
+}
+
+/** A step of the live analysis, for the benchmark's breakdown (no-op unless the page asked for it). */
+export function markStage(stage: 'requested' | 'analysed', seq: number): void {
+  if (typeof window === 'undefined') return;
+  const w = window as unknown as BenchWindow;
+  if (!w.__mlDrawn || !w.__mlOnStage) return;
+  w.__mlOnStage(stage, { at: epochNow(), seq });
 }

@@ -11,7 +11,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Design } from '../../../../shared/rf/design';
 import { engineErrorMessage, getEngineClient, type EngineClient } from './engine-client';
 import type { AnalysisResult, ImpedancePath } from './engine-types';
-import { noteResultSource } from './draw-marks';
+import { markStage, noteResultSource } from './draw-marks';
 import { createLatestScheduler } from './latest-scheduler';
 
 export interface AnalysisState {
@@ -47,7 +47,9 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
       return;
     }
     setState((s) => (s.pending ? s : { ...s, pending: true }));
+    markStage('requested', scheduler.issued + 1);
     void scheduler.request(design).then((outcome) => {
+      if (outcome.status !== 'stale') markStage('analysed', outcome.seq);
       if (!alive.current || outcome.status === 'stale') return;
       const pending = scheduler.busy;
       if (outcome.status === 'done') {

@@ -11,12 +11,13 @@
  * Three Konva layers: the grid (cached bitmap, redrawn only on size/view/grid options), the traces
  * (redrawn synchronously when a new result arrives) and the pointer layer (hover, cursors).
  */
-import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Circle, Group, Layer, Line, Rect, RegularPolygon, Stage, Text } from 'react-konva';
 import type Konva from 'konva';
 import type { Design } from '../../../../shared/rf/design';
 import type { AnalysisResult, ImpedancePath } from '../analysis/engine-types';
 import { markDrawn } from '../analysis/draw-marks';
+import { drawingKeyOf, sameDrawingProps } from '../analysis/drawing-key';
 import { CHART_PALETTE, elementKindColour, elementKindFamily } from './chart-palette';
 import { DEFAULT_VIEW, panView, pixelToGamma, zoomViewAt, type ChartView } from './geometry';
 import { buildGridModel, labelWidth, type GridModel } from './grid-model';
@@ -66,7 +67,13 @@ interface Hover {
   readout: Readout;
 }
 
-export function SmithChart(props: SmithChartProps) {
+/**
+ * Re-renders only when something it draws changes: a new `design` object whose z0, band, goal and
+ * chain length are unchanged (a value being tuned) waits for its analysis result instead.
+ */
+export const SmithChart = memo(SmithChartView, sameDrawingProps);
+
+function SmithChartView(props: SmithChartProps) {
   const { width, height, design, result, path } = props;
   const [ownView, setOwnView] = useState<ChartView>(DEFAULT_VIEW);
   const view = props.view ?? ownView;
@@ -97,7 +104,8 @@ export function SmithChart(props: SmithChartProps) {
         preview: props.preview,
         cursors: props.cursors,
       }),
-    [width, height, view.zoom, view.cx, view.cy, design, result, path, props.selectedElementId, props.envelope, props.compare, props.preview, props.cursors],
+    // the design matters only through z0, band and goal: a tuned value alone waits for its result
+    [width, height, view.zoom, view.cx, view.cy, drawingKeyOf(design), result, path, props.selectedElementId, props.envelope, props.compare, props.preview, cursorsKeyOf(props.cursors)],
   );
 
   const gridGroup = useRef<Konva.Group>(null);
@@ -271,6 +279,11 @@ export function SmithChart(props: SmithChartProps) {
       </p>
     </div>
   );
+}
+
+/** Other people's cursors by value: presence hands over a new array on every awareness change. */
+function cursorsKeyOf(cursors: ChartCursor[] | undefined): string {
+  return (cursors ?? []).map((c) => `${c.userId}:${c.name}:${c.color}:${c.gamma[0]}:${c.gamma[1]}`).join('|');
 }
 
 // ---- grid ----------------------------------------------------------------------------------

@@ -6,12 +6,13 @@
  * Drag across the plot to zoom in on frequency; double-click to zoom back out. Types from
  * ../analysis/engine-types.
  */
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { Design } from '../../../../shared/rf/design';
 import type { AnalysisResult } from '../analysis/engine-types';
 import { markDrawn } from '../analysis/draw-marks';
+import { drawingKeyOf, sameDrawingProps } from '../analysis/drawing-key';
 import { buildPlotModel, plotSummary, type PlotModel, type SweepPlotMode } from './plot-model';
 
 export type { SweepPlotMode };
@@ -179,9 +180,16 @@ function plotOptions(m: PlotModel, width: number, height: number, model: { curre
   };
 }
 
-export function SweepPlot(props: SweepPlotProps) {
+/** Re-renders only when something it draws changes (see SmithChart). */
+export const SweepPlot = memo(SweepPlotView, sameDrawingProps);
+
+function SweepPlotView(props: SweepPlotProps) {
   const { width, height, design, result, mode, compare, envelope } = props;
-  const model = useMemo(() => buildPlotModel({ design, result, mode, compare, envelope }), [design, result, mode, compare, envelope]);
+  // the design matters only through band and goal: a tuned value alone waits for its result
+  const model = useMemo(
+    () => buildPlotModel({ design, result, mode, compare, envelope }),
+    [drawingKeyOf(design), result, mode, compare, envelope],
+  );
   const holder = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
   const latest = useRef(model);
