@@ -12,6 +12,7 @@ import { CHIP_ANTENNA_ROOM, DEMO_PASSWORD } from '../shared/demo/designs';
 import { signIn } from './support/auth';
 import { launchBrowser, openSession, type BrowserSession } from './support/browser';
 import { startTestServer, type TestServer } from './support/server';
+import { chainLayout, RAIL_Y } from '../client/features/workspace/chain/chain-layout';
 
 let server: TestServer;
 let browser: Browser;
@@ -191,6 +192,51 @@ describe('room workspace', () => {
     await load.getByText(/farads.*expected henries/).waitFor();
     await load.getByRole('button', { name: 'Revert' }).click();
     await tuner.screenshot('workspace-05-forms');
+    tuner.assertClean();
+  });
+
+  it('on the chain canvas: a click selects, dragging the value or the wheel tunes, dragging a part reorders', async () => {
+    const { page } = tuner;
+    await openTab(page, 'Element');
+    await page.getByLabel('Tuning steps').selectOption('smooth');
+    const canvas = page.locator('.chain-canvas canvas').first();
+    const raw = (await canvas.boundingBox())!;
+    const box = { ...raw, x: Math.round(raw.x), y: Math.round(raw.y) };
+    const layout = chainLayout(2);
+    const left = box.x + Math.max(0, Math.floor((box.width - layout.width) / 2));
+    const centreOf = (index: number) => left + layout.cellX(index) + 60;
+    const valueOf = async () => inspector(page).getByLabel('Value (H)', { exact: true }).inputValue();
+
+    // L1 sits next to the load (chain index 0, on the right).
+    await page.mouse.click(centreOf(0), box.y + RAIL_Y + 40);
+    await inspector(page).getByRole('heading', { name: /^L1/ }).waitFor();
+    expect(await valueOf()).toBe('930 pH');
+
+    // Drag the value label up by 20 px: five 2 % steps.
+    await page.mouse.move(centreOf(0), box.y + 32);
+    await page.mouse.down();
+    await page.mouse.move(centreOf(0), box.y + 22, { steps: 3 });
+    await page.mouse.move(centreOf(0), box.y + 12, { steps: 3 });
+    await page.mouse.up();
+    await expect.poll(valueOf).toBe('1.027 nH'); // 930 pH × 1.02^5
+    // One wheel notch down over the part: one step back.
+    await page.mouse.move(centreOf(0), box.y + RAIL_Y + 40);
+    await page.mouse.wheel(0, 100);
+    await expect.poll(valueOf).toBe('1.007 nH');
+    await tuner.screenshot('workspace-06-canvas-tuned');
+    for (let i = 0; i < 4 && (await valueOf()) !== '930 pH'; i++) await page.getByRole('button', { name: 'Undo', exact: true }).click();
+    expect(await valueOf()).toBe('930 pH');
+
+    // Drag C1 (port side, index 1) one cell toward the load: the chain order flips, in one undoable edit.
+    await page.mouse.move(centreOf(1), box.y + RAIL_Y + 60);
+    await page.mouse.down();
+    await page.mouse.move(centreOf(1) + 60, box.y + RAIL_Y + 60, { steps: 5 });
+    await page.mouse.move(centreOf(1) + 120, box.y + RAIL_Y + 60, { steps: 5 });
+    await page.mouse.up();
+    await expect.poll(() => chainList(page).getByRole('button').allInnerTexts()).toEqual(['L1, series L, 930 pH', 'C1, shunt C, 1.8 pF']);
+    await summaryWorst(page).getByText('outside goal').waitFor();
+    await page.getByRole('button', { name: 'Undo', exact: true }).click();
+    await expect.poll(() => chainList(page).getByRole('button').allInnerTexts()).toEqual(['C1, shunt C, 1.8 pF', 'L1, series L, 930 pH']);
     tuner.assertClean();
   });
 });

@@ -72,6 +72,8 @@ describe('pointer steps', () => {
   it('dragging up increases, four pixels a step', () => {
     expect(dragSteps(-8)).toBe(2);
     expect(dragSteps(4)).toBe(-1);
+    expect(dragSteps(-9)).toBe(2);
+    expect(dragSteps(1)).toBe(0);
   });
   it('one wheel notch per event, up increases', () => {
     expect(wheelSteps(-120)).toBe(1);

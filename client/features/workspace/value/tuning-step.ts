@@ -40,7 +40,7 @@ export function tidyValue(value: number, scale: 'log' | 'linear'): number {
 }
 
 /**
- * `value` moved by `steps` (signed; fractional steps allowed on continuous scales, for drags).
+ * `value` moved by `steps` (signed).
  * Never returns zero, a negative or a non-finite number for a log scale; a linear (degree)
  * value stops at zero.
  */
@@ -74,9 +74,12 @@ function preferredNeighbour(value: number, up: boolean, series: ESeries): number
   }
 }
 
-/** Steps for a vertical drag of `dy` pixels (screen y grows downward; dragging up increases). */
+/**
+ * Whole steps for a vertical drag of `dy` pixels (screen y grows downward; dragging up increases):
+ * the value moves in the same steps as the arrow keys, so a drag lands on the same tidy values.
+ */
 export function dragSteps(dy: number): number {
-  return -dy / DRAG_PIXELS_PER_STEP;
+  return Math.round(-dy / DRAG_PIXELS_PER_STEP) || 0;
 }
 
 /** Steps for one wheel event (one notch per event, whatever the device reports). */
