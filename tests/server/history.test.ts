@@ -3,7 +3,11 @@
  * review requests by mail, branches with or without the members, the lineage tree, and compare.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as Y from 'yjs';
 import { readDesign, readElement, setElementField } from '../../shared/collab/schema';
+import { loadRoomDocument } from '../../server/collab/store';
+import { createTokenService } from '../../server/auth/tokens';
+import { loopbackRoomSink } from '../../server/rooms/loopback-sink';
 import { parseDesign } from '../../shared/rf/design';
 import { whipE12Design, whipFirstCutDesign } from '../../shared/demo/designs';
 import { signUp, startTestServer, type TestServer } from './helpers/test-server';
@@ -135,6 +139,49 @@ describe('POST /api/rooms/:id/snapshots/:snapshotId/restore', () => {
     const foreign = await snapshot(foreignRoom, 'theirs', outsider);
     const r = await owner.agent.post(`/api/rooms/${roomId}/snapshots/${foreign.id}/restore`).expect(404);
     expect(r.body.error.message).toBe('Snapshot not found.');
+  });
+});
+
+describe('the loopback sink (how a server-side edit reaches the hub)', () => {
+  async function editUpdate(roomId: string): Promise<Uint8Array> {
+    const { doc } = await loadRoomDocument(server.knex, roomId);
+    const before = Y.encodeStateVector(doc);
+    setElementField(doc, 'c-shunt', 'value', 11e-12);
+    const update = Y.encodeStateAsUpdate(doc, before);
+    doc.destroy();
+    return update;
+  }
+
+  it('does not pretend: a change the hub drops (an observer may not edit) is 503 room-busy, and nothing is stored', async () => {
+    const roomId = await newRoom();
+    const sink = loopbackRoomSink({
+      knex: server.knex,
+      tokens: createTokenService(server.config.jwtSecret),
+      baseUrl: () => server.url,
+      timeoutMs: 400,
+    });
+    const update = await editUpdate(roomId);
+    await expect(sink.applyUpdate(roomId, update, observer.user.id)).rejects.toMatchObject({
+      status: 503,
+      code: 'room-busy',
+    });
+    expect((await design(roomId)).elements[1].value).toBe(12e-12);
+    await sink.applyUpdate(roomId, update, tuner.user.id);
+    expect((await design(roomId)).elements[1].value).toBe(11e-12);
+  });
+
+  it('refuses a change larger than one room-socket message with 413, before connecting', async () => {
+    const roomId = await newRoom();
+    const sink = loopbackRoomSink({
+      knex: server.knex,
+      tokens: createTokenService(server.config.jwtSecret),
+      baseUrl: () => 'http://127.0.0.1:1',
+      maxMessageBytes: 16,
+    });
+    await expect(sink.applyUpdate(roomId, await editUpdate(roomId), tuner.user.id)).rejects.toMatchObject({
+      status: 413,
+      code: 'too-large',
+    });
   });
 });
 
