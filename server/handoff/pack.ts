@@ -35,8 +35,8 @@ export interface HandoffContext {
   design: Design;
   exportedAt: number;
   series?: BomSeries;
-  /** the analysis, or why the engine refused the design */
-  analysis: { ok: true; result: AnalysisResult } | { ok: false; message: string };
+  /** the analysis (run on first need), or why the engine refused the design */
+  analysis?: { ok: true; result: AnalysisResult } | { ok: false; message: string };
 }
 
 export interface HandoffBody {
@@ -53,13 +53,21 @@ const CONTENT_TYPES: Record<HandoffFile, string> = {
   'report.pdf': 'application/pdf',
 };
 
-function analysisOf(design: Design): HandoffContext['analysis'] {
+/**
+ * The engine's refusals: its typed errors with a code and a readable message (DesignError names the
+ * JSON path), and RangeError, which it uses for arguments it cannot take.
+ */
+function isEngineRefusal(e: unknown): e is Error {
+  return e instanceof DesignError || e instanceof RangeError || (e instanceof Error && typeof (e as { code?: unknown }).code === 'string');
+}
+
+function analysisOf(design: Design): NonNullable<HandoffContext['analysis']> {
   try {
     return { ok: true, result: analyze(design) };
   } catch (e) {
-    // The engine's refusals are typed errors with a readable message (DesignError names the JSON path).
-    const message = e instanceof Error && e.message ? e.message : 'the engine could not analyse the design';
-    return { ok: false, message };
+    // Anything else is a fault of ours: let it be a logged 500 rather than dress it up as the design's.
+    if (!isEngineRefusal(e)) throw e;
+    return { ok: false, message: e.message || 'the engine could not analyse the design' };
   }
 }
 
@@ -75,10 +83,11 @@ export async function loadHandoffContext(knex: Knex, roomId: string, opts: Hando
       throw new HttpError(409, 'invalid-design', `The room document does not hold a valid design: ${e.message}`, { path: e.path });
     throw e;
   }
-  return { roomId, roomName: room.name, design, exportedAt: opts.now ?? Date.now(), series: opts.series, analysis: analysisOf(design) };
+  return { roomId, roomName: room.name, design, exportedAt: opts.now ?? Date.now(), series: opts.series };
 }
 
 function resultOf(ctx: HandoffContext): AnalysisResult {
+  ctx.analysis ??= analysisOf(ctx.design);
   if (ctx.analysis.ok) return ctx.analysis.result;
   throw new HttpError(409, 'analysis-failed', `The design cannot be analysed, so this export is not available: ${ctx.analysis.message}`);
 }

@@ -18,6 +18,7 @@ import { whipE12Design } from '../../shared/demo/designs';
 import { analyze } from '../../shared/rf/analyze';
 import { bandCenterHz, parseDesign, type LineElement } from '../../shared/rf/design';
 import { impedancePath } from '../../shared/rf/impedance-path';
+import { standardFonts } from '../../server/handoff/pdf/fonts';
 import { PdfText } from '../../server/handoff/pdf/rich-text';
 import { woffToSfnt, WoffError } from '../../server/handoff/pdf/woff';
 import { chainDesign } from './helpers';
@@ -248,5 +249,50 @@ describe('PDF text helpers', () => {
     expect(text.width('ΩΩ', { size: 10 })).toBeCloseTo(14.8, 9);
     expect(text.wrap('one two three four', { size: 10 }, text.width('one two three', { size: 10 }) - 0.01)).toEqual(['one two', 'three four']);
     expect(text.wrap('abcdefghij', { size: 10 }, text.width('abcde', { size: 10 }) + 0.01)).toEqual(['abcde', 'fghij']);
+    expect(text.runs('a\u0000b\tc').map((r) => ('text' in r ? r.text : 'glyph'))).toEqual(['ab c']);
+  });
+
+  it('PdfText falls back to Helvetica (WinAnsi) without the Nunito files, still drawing Ω as a glyph', () => {
+    const text = new PdfText(new PDFDocument({ autoFirstPage: true }), standardFonts());
+    expect(text.embedded).toBe(false);
+    const runs = text.runs('50 Ω, café');
+    expect(runs.map((r) => ('glyph' in r ? 'glyph' : `${r.face.name}:${r.text}`))).toEqual(['Helvetica:50 ', 'glyph', 'Helvetica:, café']);
+  });
+
+  it('wraps and fits a very long unbroken word without quadratic cost', () => {
+    const text = new PdfText(new PDFDocument({ autoFirstPage: true }));
+    const word = 'x'.repeat(6000);
+    const lines = text.wrap(word, { size: 8 }, 300);
+    expect(lines.join('')).toBe(word);
+    expect(lines.length).toBeGreaterThan(15);
+    for (const l of lines.slice(0, -1)) expect(text.width(l, { size: 8 })).toBeLessThanOrEqual(300);
+    const fitted = text.fit(word, { size: 8 }, 100);
+    expect(fitted.endsWith('…')).toBe(true);
+    expect(text.width(fitted, { size: 8 })).toBeLessThanOrEqual(100);
+  });
+});
+
+describe('report model of other element kinds', () => {
+  it('shows a transformer by its ratio and a measured two-port as measured; the BOM and lines skip them', () => {
+    const s2p = '# GHz S RI R 50\n2 0 0 1 0 1 0 0 0\n3 0 0 1 0 1 0 0 0\n';
+    const design = parseDesign(
+      chainDesign({
+        elements: [
+          { id: 'n1', kind: 'two-port', touchstone: s2p, flipped: true },
+          { id: 't1', kind: 'transformer', ratio: 1.5 },
+          { id: 'c1', kind: 'series-c', value: 2e-12 },
+        ],
+      }),
+    );
+    const result = analyze(design);
+    const bom = bomRows(design, result.stressAtCenter);
+    expect(bom.map((b) => b.id)).toEqual(['c1']);
+    const m = reportModel({ roomName: 'R', design, result, bom, lines: lineTable(design), notes: [], generatedAt: 0 });
+    expect(m.elements.map((e) => [e.ref, e.value])).toEqual([
+      ['N1', 'measured, flipped'],
+      ['T1', '1 : 1.5'],
+      ['C1', '2 pF'],
+    ]);
+    expect(m.lineNote).toBeNull();
   });
 });

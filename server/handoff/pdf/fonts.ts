@@ -69,7 +69,8 @@ export function covers(face: FontFace, cp: number): boolean {
   return false;
 }
 
-function standardFonts(): FontSet {
+/** Helvetica (WinAnsi) for every weight: the stand-in when the Nunito Sans files are missing. */
+export function standardFonts(): FontSet {
   const face = (w: FontWeight): FontFace[] => [{ name: STANDARD[w], data: null, ranges: WIN_ANSI }];
   return { faces: { regular: face('regular'), semibold: face('semibold'), bold: face('bold') }, embedded: false };
 }

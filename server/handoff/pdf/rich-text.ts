@@ -17,6 +17,14 @@ export interface TextStyle {
 type Run = { face: FontFace; text: string } | { glyph: VectorGlyph };
 
 const STROKE_EM: Record<FontWeight, number> = { regular: 0.068, semibold: 0.085, bold: 0.1 };
+/**
+ * No printing character of the faces is narrower than this (in em; Nunito Sans' narrowest, the
+ * apostrophe and "i", are about 0.2 em): so more than maxWidth/(MIN_ADVANCE_EM·size) characters
+ * never fit, and long text is never measured whole.
+ */
+const MIN_ADVANCE_EM = 0.12;
+
+const capacity = (maxWidth: number, size: number) => Math.max(1, Math.floor(maxWidth / (MIN_ADVANCE_EM * size)));
 
 export class PdfText {
   private readonly fonts: FontSet;
@@ -49,7 +57,8 @@ export class PdfText {
     };
     const place = (ch: string, depth: number) => {
       const cp = ch.codePointAt(0) ?? 0x3f;
-      if (ch === '\n' || ch === '\r') return;
+      if (ch === '\t') return push(faces[0], ' ');
+      if (cp < 0x20 || (cp >= 0x7f && cp < 0xa0)) return; // control characters print nothing
       const face = faces.find((f) => covers(f, cp));
       if (face) return push(face, ch);
       const glyph = VECTOR_GLYPHS.get(cp);
@@ -110,21 +119,22 @@ export class PdfText {
 
   /** Word-wraps `text` to `maxWidth` (paragraphs split at newlines; an over-long word is cut). */
   wrap(text: string, style: Pick<TextStyle, 'size' | 'weight'>, maxWidth: number): string[] {
+    const cap = capacity(maxWidth, style.size);
+    const fits = (t: string) => t.length <= cap && this.width(t, style) <= maxWidth;
     const lines: string[] = [];
     for (const para of text.replace(/\r\n?/g, '\n').split('\n')) {
       const words = para.split(/[ \t]+/).filter(Boolean);
       let line = '';
       for (let word of words) {
         const candidate = line ? `${line} ${word}` : word;
-        if (this.width(candidate, style) <= maxWidth) {
+        if (fits(candidate)) {
           line = candidate;
           continue;
         }
         if (line) lines.push(line);
-        // A single word wider than the line: cut it where it fits.
-        while (this.width(word, style) > maxWidth && word.length > 1) {
-          let cut = word.length - 1;
-          while (cut > 1 && this.width(word.slice(0, cut), style) > maxWidth) cut--;
+        // A single word wider than the line: cut it where it fits (binary search over at most `cap` characters).
+        while (word.length > 1 && !fits(word)) {
+          const cut = this.longestFit(word, style, maxWidth, '');
           lines.push(word.slice(0, cut));
           word = word.slice(cut);
         }
@@ -135,11 +145,21 @@ export class PdfText {
     return lines;
   }
 
+  /** The longest prefix length (at least 1) of `text` that, followed by `suffix`, fits `maxWidth`. */
+  private longestFit(text: string, style: Pick<TextStyle, 'size' | 'weight'>, maxWidth: number, suffix: string): number {
+    let lo = 1;
+    let hi = Math.min(text.length, capacity(maxWidth, style.size));
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (this.width(text.slice(0, mid) + suffix, style) <= maxWidth) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo;
+  }
+
   /** Shortens `text` with an ellipsis to fit `maxWidth`. */
   fit(text: string, style: Pick<TextStyle, 'size' | 'weight'>, maxWidth: number): string {
-    if (this.width(text, style) <= maxWidth) return text;
-    let s = text;
-    while (s.length > 1 && this.width(`${s}…`, style) > maxWidth) s = s.slice(0, -1);
-    return `${s.trimEnd()}…`;
+    if (text.length <= capacity(maxWidth, style.size) && this.width(text, style) <= maxWidth) return text;
+    return `${text.slice(0, this.longestFit(text, style, maxWidth, '…')).trimEnd()}…`;
   }
 }
