@@ -3,7 +3,7 @@ import { cleanup, render, renderHook, screen, act } from '@testing-library/react
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import * as Y from 'yjs';
-import { createDesignDoc, readDesign } from '../../shared/collab/schema';
+import { createDesignDoc, readDesign, setElementField } from '../../shared/collab/schema';
 import { analyze } from '../../shared/rf/analyze';
 import { parseDesign } from '../../shared/rf/design';
 import { chipAntennaDesign, whipE12Design } from '../../shared/demo/designs';
@@ -12,6 +12,7 @@ import { ElementInspector, type ElementActions } from '../../client/features/wor
 import { FiguresPanel } from '../../client/features/workspace/figures/figures-panel';
 import { useLocalUndo } from '../../client/features/workspace/collab/use-local-undo';
 import { useDesignEdits } from '../../client/features/workspace/collab/use-design-edits';
+import { useRoomDesign } from '../../client/features/workspace/collab/use-room-design';
 
 afterEach(() => cleanup());
 
@@ -210,5 +211,24 @@ describe('per-user undo through the screen’s edits', () => {
     expect(readDesign(doc).elements.map((e) => e.id)).toEqual(['c-series', 'C3', 'c-shunt', 'L1']);
     act(() => undo.result.current!.undo());
     expect(readDesign(doc).elements.map((e) => e.id)).toEqual(['c-series', 'c-shunt', 'L1']);
+  });
+});
+
+describe('useRoomDesign', () => {
+  it('keeps the last good design and names the problem when a peer writes nonsense', () => {
+    const doc = createDesignDoc(whipE12Design());
+    const hook = renderHook(() => useRoomDesign(doc, true));
+    expect(hook.result.current.design?.elements).toHaveLength(2);
+    act(() => setElementField(doc, 'c-shunt', 'value', -1));
+    expect(hook.result.current.error).toMatch(/^elements\[1\]\.value: must be a positive number of farads/);
+    expect(hook.result.current.design?.elements[1]).toMatchObject({ id: 'c-shunt', value: 12e-12 });
+    act(() => setElementField(doc, 'c-shunt', 'value', 15e-12));
+    expect(hook.result.current.error).toBeNull();
+    expect(hook.result.current.design?.elements[1]).toMatchObject({ value: 15e-12 });
+  });
+
+  it('does not call an empty document an error before it has synced', () => {
+    const hook = renderHook(() => useRoomDesign(new Y.Doc(), false));
+    expect(hook.result.current).toEqual({ design: null, error: null });
   });
 });

@@ -29,10 +29,15 @@ export function usePresence(provider: WebsocketProvider | null, me: PresenceUser
     if (!provider) return;
     const awareness = provider.awareness;
     const refresh = () => setPeers(peersFrom(awareness.getStates() as Map<number, unknown>, awareness.clientID));
-    awareness.on('change', refresh);
+    // Our own pointer moves change only our own state: nothing to redraw for that.
+    const onChange = (changes: { added: number[]; updated: number[]; removed: number[] }) => {
+      const ids = [...changes.added, ...changes.updated, ...changes.removed];
+      if (ids.some((id) => id !== awareness.clientID)) refresh();
+    };
+    awareness.on('change', onChange);
     refresh();
     return () => {
-      awareness.off('change', refresh);
+      awareness.off('change', onChange);
       setPeers([]);
     };
   }, [provider]);
