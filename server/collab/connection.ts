@@ -45,8 +45,16 @@ export class CollabConnection {
     else this.closedListeners.push(fn);
   }
 
+  /** Removed from the room: nothing it sent may be stored, even if already queued. */
+  revoked = false;
+
+  /** May this socket's updates be stored? (Queued updates of a socket that has since closed still count.) */
+  mayWrite(): boolean {
+    return !this.revoked && canEdit(this.role);
+  }
+
   canWrite(): boolean {
-    return !this.closed && canEdit(this.role);
+    return !this.closed && this.mayWrite();
   }
 
   send(message: Uint8Array): void {

@@ -25,6 +25,8 @@ import type { Room } from './room';
 import { RoomEvents } from './room-events';
 import { RoomLogWriter } from './room-log';
 import { RoomRegistry } from './rooms';
+import { openSyncUpdateWriter } from './store';
+import { WriteScheduler } from './write-scheduler';
 import { COLLAB_CLOSE } from '../../shared/collab/close-codes';
 
 export interface CollabHub {
@@ -65,10 +67,14 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
   let events: RoomEvents;
   const roomLog = new RoomLogWriter(knex, logger, limits, (roomId, entry) => events.emitLog(roomId, entry));
   events = new RoomEvents({ knex, tokens, logger, limits, roomLog, publicUrl: config.publicUrl });
+  const syncWriter = openSyncUpdateWriter(knex);
+  const scheduler = syncWriter ? new WriteScheduler(syncWriter, logger) : null;
   const registry = new RoomRegistry({
     knex,
     logger,
     limits,
+    syncWriter,
+    scheduler,
     onChanges: (roomId, userId, changes) => roomLog.record(roomId, userId, changes),
   });
   // The hard cap sits above the per-message limit so that an oversized message gets a clear 4413.
@@ -228,6 +234,7 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
       await registry.closeAll();
       for (const c of connections) c.terminate();
       await roomLog.flush();
+      syncWriter?.close();
       await new Promise<void>((resolve) => wss.close(() => resolve()));
       server = null;
     },

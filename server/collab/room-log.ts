@@ -2,7 +2,8 @@
  * The room log: who changed what, when, in words ("Ada changed C2 from 1.2 pF to 1.5 pF"), stored in
  * `room_log` and sent to the room as it happens. Rapid edits of one field by one person (within
  * `logCoalesceMs` of each other) are one entry: the first edit inserts the row and sends it; later ones
- * rewrite that row's wording and time (at most every FLUSH_MS) and send it again with the same id.
+ * send it again with the same id and the new wording (at most every EMIT_MS), and the row is rewritten
+ * once the edits stop (or at shutdown), so a drag of a value slider costs two writes, not fifty.
  */
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
@@ -10,7 +11,7 @@ import type { CollabLimits } from './limits';
 import { changeSentence, mergeChanges, type DesignChange } from '../../shared/collab/describe';
 import type { RoomLogEntry } from '../../shared/collab/events';
 
-const FLUSH_MS = 250;
+const EMIT_MS = 250;
 const NAME_TTL_MS = 60_000;
 const UNKNOWN_NAME = 'Someone';
 
@@ -20,8 +21,11 @@ interface Burst {
   change: DesignChange;
   lastAt: number;
   id: number | null;
-  dirty: boolean;
-  timer: NodeJS.Timeout | null;
+  /** Wording changed since it was last sent / last written. */
+  unsent: boolean;
+  unwritten: boolean;
+  emitTimer: NodeJS.Timeout | null;
+  writeTimer: NodeJS.Timeout | null;
 }
 
 export class RoomLogWriter {
@@ -47,12 +51,12 @@ export class RoomLogWriter {
         if (merged) {
           b.change = merged;
           b.lastAt = now;
-          this.scheduleFlush(b);
+          this.changed(b);
           continue;
         }
       }
-      if (b?.timer) this.flushNow(b);
-      const burst: Burst = { roomId, userId, change: c, lastAt: now, id: null, dirty: false, timer: null };
+      if (b) this.settle(b);
+      const burst: Burst = { roomId, userId, change: c, lastAt: now, id: null, unsent: false, unwritten: false, emitTimer: null, writeTimer: null };
       this.bursts.set(key, burst);
       this.enqueue(() => this.insert(burst));
     }
@@ -67,14 +71,23 @@ export class RoomLogWriter {
       .orderBy('l.id', 'desc')
       .limit(limit)
       .select('l.id', 'l.user_id', 'l.message', 'l.created_at', 'u.display_name');
-    return rows.reverse().map((r) => ({
-      id: Number(r.id),
-      roomId,
-      userId: r.user_id ?? null,
-      displayName: r.display_name ?? UNKNOWN_NAME,
-      message: String(r.message),
-      at: Number(r.created_at),
-    }));
+    // An entry whose edits are still going on has newer wording in memory than in its row.
+    const live = new Map<number, Burst>();
+    for (const b of this.bursts.values()) if (b.roomId === roomId && b.id !== null && b.unwritten) live.set(b.id, b);
+    return Promise.all(
+      rows.reverse().map(async (r) => {
+        const b = live.get(Number(r.id));
+        if (b) return this.entry(b, b.id!);
+        return {
+          id: Number(r.id),
+          roomId,
+          userId: r.user_id ?? null,
+          displayName: r.display_name ?? UNKNOWN_NAME,
+          message: String(r.message),
+          at: Number(r.created_at),
+        };
+      }),
+    );
   }
 
   /** A member's display name (cached for a minute). */
@@ -87,9 +100,9 @@ export class RoomLogWriter {
     return name;
   }
 
-  /** Write every pending rewording and wait for all writes. */
+  /** Send and write every pending rewording, and wait for all writes. */
   async flush(): Promise<void> {
-    for (const b of this.bursts.values()) if (b.timer) this.flushNow(b);
+    for (const b of this.bursts.values()) this.settle(b);
     await this.chain;
   }
 
@@ -97,7 +110,7 @@ export class RoomLogWriter {
   forgetRoom(roomId: string): void {
     for (const [k, b] of this.bursts) {
       if (b.roomId !== roomId) continue;
-      if (b.timer) clearTimeout(b.timer);
+      this.clearTimers(b);
       this.bursts.delete(k);
     }
   }
@@ -108,16 +121,39 @@ export class RoomLogWriter {
     });
   }
 
-  private scheduleFlush(b: Burst): void {
-    b.dirty = true;
-    if (b.timer) return;
-    b.timer = setTimeout(() => this.flushNow(b), FLUSH_MS);
+  /** A merge changed the wording: send it soon, write it when the edits stop. */
+  private changed(b: Burst): void {
+    b.unsent = true;
+    b.unwritten = true;
+    if (!b.emitTimer) b.emitTimer = setTimeout(() => this.emitNow(b), EMIT_MS);
+    if (b.writeTimer) clearTimeout(b.writeTimer);
+    b.writeTimer = setTimeout(() => this.settle(b), this.limits.logCoalesceMs + EMIT_MS);
   }
 
-  private flushNow(b: Burst): void {
-    if (b.timer) clearTimeout(b.timer);
-    b.timer = null;
-    this.enqueue(() => this.rewrite(b));
+  /** Send and write the burst's latest wording now. */
+  private settle(b: Burst): void {
+    if (b.unsent) this.emitNow(b);
+    this.clearTimers(b);
+    if (b.unwritten) this.enqueue(() => this.write(b));
+  }
+
+  private clearTimers(b: Burst): void {
+    if (b.emitTimer) clearTimeout(b.emitTimer);
+    if (b.writeTimer) clearTimeout(b.writeTimer);
+    b.emitTimer = null;
+    b.writeTimer = null;
+  }
+
+  private emitNow(b: Burst): void {
+    if (b.emitTimer) clearTimeout(b.emitTimer);
+    b.emitTimer = null;
+    if (!b.unsent) return;
+    // After the insert (which gives the id): the send goes through the same queue.
+    this.enqueue(async () => {
+      if (b.id === null || !b.unsent) return;
+      b.unsent = false;
+      this.emit(b.roomId, await this.entry(b, b.id));
+    });
   }
 
   private async entry(b: Burst, id: number): Promise<RoomLogEntry> {
@@ -134,16 +170,15 @@ export class RoomLogWriter {
     this.emit(b.roomId, { ...draft, id: b.id });
   }
 
-  private async rewrite(b: Burst): Promise<void> {
-    if (!b.dirty || b.id === null) return;
-    b.dirty = false;
+  private async write(b: Burst): Promise<void> {
+    if (!b.unwritten || b.id === null) return;
+    b.unwritten = false;
     const e = await this.entry(b, b.id);
     await this.knex('room_log').where({ id: b.id }).update({ message: e.message.slice(0, 1000), created_at: e.at });
-    this.emit(b.roomId, e);
   }
 
   private prune(now: number): void {
     for (const [k, b] of this.bursts)
-      if (!b.timer && !b.dirty && now - b.lastAt > this.limits.logCoalesceMs) this.bursts.delete(k);
+      if (!b.emitTimer && !b.writeTimer && !b.unsent && !b.unwritten && now - b.lastAt > this.limits.logCoalesceMs) this.bursts.delete(k);
   }
 }

@@ -9,8 +9,9 @@ import * as Y from 'yjs';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import * as awarenessProtocol from 'y-protocols/awareness';
-import { appendUpdates, loadRoomDocument, saveRoomState } from './store';
+import { appendUpdates, loadRoomDocument, saveRoomState, type SyncUpdateWriter } from './store';
 import type { CollabConnection } from './connection';
+import type { WriteScheduler } from './write-scheduler';
 import { formatBytes, type CollabLimits } from './limits';
 import {
   awarenessMessage,
@@ -29,11 +30,15 @@ export interface RoomDeps {
   knex: Knex;
   logger: Logger;
   limits: CollabLimits;
+  /** Appends synchronously (SQLite); without it every write takes the async Knex path. */
+  syncWriter?: SyncUpdateWriter | null;
+  /** Groups the rooms' synchronous appends into one transaction per turn of the event loop. */
+  scheduler?: WriteScheduler | null;
   /** Accepted changes, described, attributed to the member whose update made them. */
   onChanges?: (roomId: string, userId: string, changes: DesignChange[]) => void;
 }
 
-interface PendingWrite {
+export interface PendingWrite {
   conn: CollabConnection;
   update: Uint8Array;
   decoded: ReturnType<typeof Y.decodeUpdate>;
@@ -85,6 +90,8 @@ export class Room {
   private refs = 0;
   private unloadTimer: NodeJS.Timeout | null = null;
   private readonly pending: PendingWrite[] = [];
+  /** Admitted writes waiting for the async path (the synchronous writer found the database busy). */
+  private stalled: PendingWrite[] = [];
   private draining: Promise<void> | null = null;
   private lastUpdateId: number;
   private sinceCompaction: number;
@@ -160,7 +167,12 @@ export class Room {
     this.state = 'closing';
     if (this.unloadTimer) clearTimeout(this.unloadTimer);
     for (const conn of [...this.conns]) conn.close(opts.closeCode ?? COLLAB_CLOSE.goingAway, opts.closeReason ?? 'the server is restarting');
-    if (!opts.compact) this.pending.length = 0;
+    if (!opts.compact) {
+      this.pending.length = 0;
+      this.stalled = [];
+    }
+    // Store whatever is still queued (waiting for the scheduler or for the database) before compacting.
+    if (this.pending.length > 0 || this.stalled.length > 0) this.startDrain();
     await this.idle();
     if (opts.compact && this.sinceCompaction > 0) await this.compact();
     this.awareness.off('update', this.onAwarenessUpdate);
@@ -273,68 +285,124 @@ export class Room {
 
   // ---- the write queue ----
 
+  /**
+   * Process the queue. With a synchronous writer (SQLite) the write scheduler stores this room's queue
+   * together with every other room's at the end of this turn of the event loop (one transaction), then
+   * the room applies and broadcasts; otherwise (another database, or a busy moment) the queue drains
+   * asynchronously, still in order.
+   */
   private kick(): void {
+    if (this.draining || this.state === 'closed') return;
+    if (this.deps.scheduler && this.stalled.length === 0) {
+      this.deps.scheduler.mark(this);
+      return;
+    }
+    this.startDrain();
+  }
+
+  private startDrain(): void {
     if (this.draining) return;
     this.draining = this.drain().finally(() => {
       this.draining = null;
-      if (this.pending.length > 0 && this.state !== 'closed') this.kick();
+      if ((this.pending.length > 0 || this.stalled.length > 0) && this.state !== 'closed') this.kick();
     });
   }
 
-  private async drain(): Promise<void> {
-    const { knex, logger, limits } = this.deps;
-    while (this.pending.length > 0) {
-      const accepted: PendingWrite[] = [];
-      for (const w of this.pending.splice(0)) {
-        if (!w.conn.canWrite()) {
-          if (!w.conn.closed) {
-            logger.debug({ roomId: this.id, userId: w.conn.userId }, 'dropped a queued update: the member may no longer edit');
-            if (!updateIsRedundant(this.doc, w.decoded)) w.conn.diverged = true;
-          }
-          continue;
-        }
-        if (updateIsRedundant(this.doc, w.decoded)) continue;
-        if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
-          this.approxBytes = Y.encodeStateAsUpdate(this.doc).byteLength;
-          if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
-            w.conn.close(
-              COLLAB_CLOSE.tooLarge,
-              `the room document would pass its ${formatBytes(limits.maxDocumentBytes)} limit (now ${formatBytes(this.approxBytes)})`,
-            );
-            continue;
-          }
-        }
-        this.approxBytes += w.update.byteLength;
-        accepted.push(w);
-      }
-      if (accepted.length === 0) continue;
+  /** For the write scheduler: the queued writes to store now (empty while the async path owns the queue). */
+  takeAdmitted(): PendingWrite[] {
+    if (this.draining || this.state === 'closed' || this.stalled.length > 0) return [];
+    return this.admit(this.pending.splice(0));
+  }
 
-      let ids: number[];
-      try {
-        ids = await appendUpdates(
-          knex,
-          this.id,
-          accepted.map((w) => ({ update: w.update, userId: w.conn.userId })),
-        );
-      } catch (e) {
-        logger.error({ roomId: this.id, err: e }, 'could not store room updates; their senders will reconnect and resend');
-        for (const w of accepted) w.conn.close(COLLAB_CLOSE.serverError, 'the update could not be stored; reconnecting');
+  /** For the write scheduler: `batch` is stored with these ids. */
+  committed(batch: PendingWrite[], ids: number[]): void {
+    this.applyStored(batch, ids);
+    if (this.sinceCompaction >= this.deps.limits.compactEvery && !this.compactNow()) this.startDrain();
+    if (this.pending.length > 0) this.kick();
+  }
+
+  /** For the write scheduler: the database was busy; store `batch` the async way before anything else. */
+  stall(batch: PendingWrite[]): void {
+    this.stalled = batch;
+    this.startDrain();
+  }
+
+  /** For the write scheduler: storing `batch` failed. */
+  failed(batch: PendingWrite[], e: unknown): void {
+    this.storeFailed(batch, e);
+  }
+
+  /** The queued writes that may be stored: the writer may still edit, the update is new, it fits. */
+  private admit(batch: PendingWrite[]): PendingWrite[] {
+    const { logger, limits } = this.deps;
+    const accepted: PendingWrite[] = [];
+    for (const w of batch) {
+      if (!w.conn.mayWrite()) {
+        if (!w.conn.closed) {
+          logger.debug({ roomId: this.id, userId: w.conn.userId }, 'dropped a queued update: the member may no longer edit');
+          if (!updateIsRedundant(this.doc, w.decoded)) w.conn.diverged = true;
+        }
         continue;
       }
-
-      for (let i = 0; i < accepted.length; i++) {
-        const w = accepted[i];
-        try {
-          Y.applyUpdate(this.doc, w.update, w.conn);
-        } catch (e) {
-          logger.warn({ roomId: this.id, userId: w.conn.userId, err: e }, 'a stored update could not be applied');
-          w.conn.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
+      if (updateIsRedundant(this.doc, w.decoded)) continue;
+      if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
+        this.approxBytes = Y.encodeStateAsUpdate(this.doc).byteLength;
+        if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
+          w.conn.close(
+            COLLAB_CLOSE.tooLarge,
+            `the room document would pass its ${formatBytes(limits.maxDocumentBytes)} limit (now ${formatBytes(this.approxBytes)})`,
+          );
+          continue;
         }
-        this.lastUpdateId = ids[i];
-        this.sinceCompaction++;
-        this.describe(w.conn.userId);
       }
-      if (this.sinceCompaction >= limits.compactEvery) await this.compact();
+      this.approxBytes += w.update.byteLength;
+      accepted.push(w);
+    }
+    return accepted;
+  }
+
+  rows(batch: PendingWrite[]) {
+    return batch.map((w) => ({ update: w.update, userId: w.conn.userId }));
+  }
+
+  private storeFailed(batch: PendingWrite[], e: unknown): void {
+    this.deps.logger.error({ roomId: this.id, err: e }, 'could not store room updates; their senders will reconnect and resend');
+    for (const w of batch) w.conn.close(COLLAB_CLOSE.serverError, 'the update could not be stored; reconnecting');
+  }
+
+  /** Apply stored updates in order (each broadcast by the document's update handler) and describe them. */
+  private applyStored(batch: PendingWrite[], ids: number[]): void {
+    for (let i = 0; i < batch.length; i++) {
+      const w = batch[i];
+      try {
+        Y.applyUpdate(this.doc, w.update, w.conn);
+      } catch (e) {
+        this.deps.logger.warn({ roomId: this.id, userId: w.conn.userId, err: e }, 'a stored update could not be applied');
+        w.conn.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
+      }
+      this.lastUpdateId = ids[i];
+      this.sinceCompaction++;
+      this.describe(w.conn.userId);
+    }
+  }
+
+  private async drain(): Promise<void> {
+    const { knex, limits, syncWriter } = this.deps;
+    while (this.stalled.length > 0 || this.pending.length > 0 || this.sinceCompaction >= limits.compactEvery) {
+      if (this.sinceCompaction >= limits.compactEvery) {
+        if (!(await this.compact())) break; // failed: try again after the next update
+        continue;
+      }
+      const batch = this.stalled.length > 0 ? this.stalled.splice(0) : this.admit(this.pending.splice(0));
+      if (batch.length === 0) continue;
+      let ids: number[];
+      try {
+        ids = syncWriter?.append(this.id, this.rows(batch)) ?? (await appendUpdates(knex, this.id, this.rows(batch)));
+      } catch (e) {
+        this.storeFailed(batch, e);
+        continue;
+      }
+      this.applyStored(batch, ids);
     }
   }
 
@@ -351,15 +419,32 @@ export class Room {
     }
   }
 
-  /** Write the in-memory document as the compacted state (called only between writes). */
-  private async compact(): Promise<void> {
+  /** Compact synchronously (SQLite); false when the database was busy (the async drain retries). */
+  private compactNow(): boolean {
     const state = Y.encodeStateAsUpdate(this.doc);
     try {
-      await saveRoomState(this.deps.knex, this.id, state, this.lastUpdateId);
-      this.sinceCompaction = 0;
-      this.approxBytes = state.byteLength;
+      if (!this.deps.syncWriter!.saveState(this.id, state, this.lastUpdateId)) return false;
     } catch (e) {
       this.deps.logger.warn({ roomId: this.id, err: e }, 'room compaction failed; will retry');
+      this.sinceCompaction = 0;
+      return true;
+    }
+    this.sinceCompaction = 0;
+    this.approxBytes = state.byteLength;
+    return true;
+  }
+
+  /** Write the in-memory document as the compacted state (called only between writes). */
+  private async compact(): Promise<boolean> {
+    const state = Y.encodeStateAsUpdate(this.doc);
+    try {
+      if (!this.deps.syncWriter?.saveState(this.id, state, this.lastUpdateId)) await saveRoomState(this.deps.knex, this.id, state, this.lastUpdateId);
+      this.sinceCompaction = 0;
+      this.approxBytes = state.byteLength;
+      return true;
+    } catch (e) {
+      this.deps.logger.warn({ roomId: this.id, err: e }, 'room compaction failed; will retry');
+      return false;
     }
   }
 
@@ -372,6 +457,7 @@ export class Room {
       if (conn.userId !== userId) continue;
       conn.roleSetByHub = true;
       if (role === null) {
+        conn.revoked = true;
         conn.close(COLLAB_CLOSE.forbidden, 'you were removed from this room');
         continue;
       }

@@ -5,6 +5,7 @@
  * (a Knex instance), never a module global.
  */
 import * as Y from 'yjs';
+import Database from 'better-sqlite3';
 import type { Knex } from 'knex';
 import { createDesignDoc, readDesign } from '../../shared/collab/schema';
 import { DesignError, type Design, type DesignInput } from '../../shared/rf/design';
@@ -125,4 +126,81 @@ export async function loadRoomDesign(knex: Knex, roomId: string): Promise<Design
   } finally {
     doc.destroy();
   }
+}
+
+/**
+ * A synchronous writer for the room log, on its own connection to the same SQLite file. The room socket
+ * appends an update and applies it in the same turn of the event loop, with no pool and no awaits in
+ * between (at a busy moment the async Knex path costs milliseconds per update). It never waits for a
+ * lock: while another connection holds the write lock (a Knex transaction, which may be waiting on this
+ * very thread), `append` returns null and the caller takes the async path instead.
+ */
+export interface SyncUpdateWriter {
+  /** Append rows in one transaction; their ids in order, or null if the database is busy. */
+  append(roomId: string, rows: readonly { update: Uint8Array; userId: string | null }[]): number[] | null;
+  /** Several rooms' rows in one transaction; ids per room, or null if the database is busy. */
+  appendMany(batches: readonly { roomId: string; rows: readonly { update: Uint8Array; userId: string | null }[] }[]): number[][] | null;
+  /** `saveRoomState`, synchronously; false if the database is busy. */
+  saveState(roomId: string, state: Uint8Array, uptoId: number): boolean;
+  close(): void;
+}
+
+/** A synchronous writer when `knex` is better-sqlite3 on a file; null otherwise (other databases, `:memory:`). */
+export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
+  const cfg = (knex as unknown as { client?: { config?: { client?: unknown; connection?: { filename?: unknown } } } }).client?.config;
+  const filename = cfg?.connection?.filename;
+  if (cfg?.client !== 'better-sqlite3' || typeof filename !== 'string' || filename === ':memory:' || filename === '') return null;
+  const db = new Database(filename);
+  db.pragma('journal_mode = WAL');
+  db.pragma('synchronous = NORMAL'); // as the main connection: durable when the process dies
+  db.pragma('foreign_keys = ON');
+  db.pragma('busy_timeout = 0'); // never block the event loop on a lock
+  // Prepared on first use: the hub may be created before the migrations have run.
+  let statements: ReturnType<typeof prepare> | null = null;
+  function prepare() {
+    const insert = db.prepare('insert into room_updates (room_id, "update", user_id, created_at) values (?, ?, ?, ?)');
+    const hasState = db.prepare('select 1 from room_states where room_id = ?');
+    const updateState = db.prepare('update room_states set state = ?, upto_id = ?, updated_at = ? where room_id = ?');
+    const insertState = db.prepare('insert into room_states (room_id, state, upto_id, updated_at) values (?, ?, ?, ?)');
+    const deleteUpto = db.prepare('delete from room_updates where room_id = ? and id <= ?');
+    return {
+      appendMany: db.transaction((batches: readonly { roomId: string; rows: readonly { update: Uint8Array; userId: string | null }[] }[]) => {
+        const now = Date.now();
+        return batches.map((b) => b.rows.map((r) => Number(insert.run(b.roomId, Buffer.from(r.update), r.userId, now).lastInsertRowid)));
+      }),
+      save: db.transaction((roomId: string, state: Uint8Array, uptoId: number) => {
+        const now = Date.now();
+        if (hasState.get(roomId)) updateState.run(Buffer.from(state), uptoId, now, roomId);
+        else insertState.run(roomId, Buffer.from(state), uptoId, now);
+        deleteUpto.run(roomId, uptoId);
+      }),
+    };
+  }
+  const st = () => (statements ??= prepare());
+  const busy = (e: unknown) => (e as { code?: string }).code === 'SQLITE_BUSY' || (e as { code?: string }).code === 'SQLITE_LOCKED';
+  return {
+    append(roomId, rows) {
+      return this.appendMany([{ roomId, rows }])?.[0] ?? null;
+    },
+    appendMany(batches) {
+      try {
+        return st().appendMany.immediate(batches);
+      } catch (e) {
+        if (busy(e)) return null;
+        throw e;
+      }
+    },
+    saveState(roomId, state, uptoId) {
+      try {
+        st().save.immediate(roomId, state, uptoId);
+        return true;
+      } catch (e) {
+        if (busy(e)) return false;
+        throw e;
+      }
+    },
+    close() {
+      if (db.open) db.close();
+    },
+  };
 }

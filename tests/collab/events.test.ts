@@ -166,7 +166,10 @@ describe('room log', () => {
     await sleep(200);
     expect(watcher.log.some((e) => e.message.includes('9 pF'))).toBe(false);
 
-    const rows = await world.server.knex('room_log').where({ room_id: roomId }).orderBy('id');
+    // The merged entry's row is rewritten once the edits stop (about 2 s after the last).
+    const messages = async () => (await world.server.knex('room_log').where({ room_id: roomId }).orderBy('id')).map((r) => r.message as string);
+    await until('the merged row to be written', async () => (await messages())[0] === 'Tuner changed C2 from 1.2 pF to 1.5 pF', 5000);
+    const rows = (await messages()).map((message) => ({ message }));
     expect(rows.map((r) => r.message)).toEqual([
       'Tuner changed C2 from 1.2 pF to 1.5 pF',
       'Owner added shunt C C3 (2.2 pF)',

@@ -2,6 +2,8 @@
 // any other client sees it, the log is compacted every N updates and on unload, idle rooms unload and
 // reload intact, a no-op resync stores nothing, shutdown stores everything, damaged log rows are skipped.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createRequire } from 'node:module';
+import { Worker } from 'node:worker_threads';
 import Database from 'better-sqlite3';
 import * as Y from 'yjs';
 import { insertElement, readDesign, readElement, setElementField } from '../../shared/collab/schema';
@@ -9,6 +11,7 @@ import { loadRoomDesign, loadRoomDocument } from '../../server/collab/store';
 import { designWith, sleep, until, type Person } from './helpers/world';
 import { startHub, type HubWorld } from './helpers/hub';
 
+const require = createRequire(import.meta.url);
 let w: HubWorld;
 let owner: Person;
 let tuner: Person;
@@ -63,6 +66,60 @@ describe('write before broadcast', () => {
     db.close();
     writer.destroy();
     reader.destroy();
+  });
+});
+
+describe('a busy database', () => {
+  it('updates that meet a held write lock wait for it and still arrive, in order, stored', async () => {
+    const roomId = await w.room(owner, designWith([{ id: 'c1', kind: 'shunt-c', value: 1e-12 }]), [[tuner, 'tuner']]);
+    const a = w.api.peer(tuner, roomId);
+    const b = w.api.peer(owner, roomId);
+    await Promise.all([a.synced, b.synced]);
+    // Another thread takes the write lock for 300 ms: the room's synchronous append finds it busy and
+    // the batch goes the async way, behind the lock.
+    const worker = new Worker(
+      `const { parentPort, workerData } = require('node:worker_threads');
+       const Database = require(workerData.module);
+       const db = new Database(workerData.file);
+       db.exec('BEGIN IMMEDIATE');
+       parentPort.postMessage('locked');
+       Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 300);
+       db.exec('COMMIT');
+       db.close();`,
+      { eval: true, workerData: { file: w.databaseFile, module: require.resolve('better-sqlite3') } },
+    );
+    await new Promise<void>((resolve) => worker.once('message', () => resolve()));
+    const seen: number[] = [];
+    b.doc.on('update', () => {
+      const v = readElement(b.doc, 'c1')?.value;
+      if (typeof v === 'number' && seen.at(-1) !== v) seen.push(v);
+    });
+    for (const v of [2e-12, 3e-12, 4e-12]) setElementField(a.doc, 'c1', 'value', v);
+    await until('all three to arrive', () => readElement(b.doc, 'c1')?.value === 4e-12, 8000);
+    expect(seen.at(-1)).toBe(4e-12);
+    expect([...seen].sort((x, y) => x - y)).toEqual(seen); // never out of order
+    expect(((await loadRoomDesign(w.knex, roomId)).elements[0] as { value?: number }).value).toBe(4e-12);
+    await worker.terminate();
+    a.destroy();
+    b.destroy();
+  });
+});
+
+describe('a failing write', () => {
+  it("closes only its own room's sockets (1011); other rooms' updates are stored", async () => {
+    const gone = await w.room(owner, designWith([{ id: 'c1', kind: 'shunt-c', value: 1e-12 }]));
+    const kept = await w.room(owner, designWith([{ id: 'c1', kind: 'shunt-c', value: 1e-12 }]));
+    const a = w.api.peer(owner, gone);
+    const b = w.api.peer(owner, kept);
+    await Promise.all([a.synced, b.synced]);
+    // The room disappears underneath the socket (no hub call): its next append breaks the foreign key.
+    await w.knex('rooms').where({ id: gone }).delete();
+    setElementField(a.doc, 'c1', 'value', 2e-12);
+    setElementField(b.doc, 'c1', 'value', 3e-12);
+    await until('the orphan socket to be closed', () => a.closes.some((c) => c.code === 1011));
+    await until('the other room to store its edit', async () => ((await loadRoomDesign(w.knex, kept)).elements[0] as { value?: number }).value === 3e-12);
+    a.destroy();
+    b.destroy();
   });
 });
 
