@@ -115,16 +115,19 @@ export function drawSweep(doc: Doc, text: PdfText, pic: SweepPicture): void {
     doc.moveTo(p.x, pic.goal.y).lineTo(p.x + p.width, pic.goal.y).dash(4, { space: 2 });
     stroke(doc, pic.goal.paint, 1);
     doc.undash();
-    const label = { size: 6, weight: 'semibold' as const, paint: pic.goal.paint };
-    const w = text.width(pic.goal.text, label);
-    doc.rect(p.x + p.width - 5 - w, pic.goal.y - 9, w + 4, 7.5).fillColor(REPORT_PALETTE.paper.colour, 0.9).fill();
-    text.draw(pic.goal.text, p.x + p.width - 3, pic.goal.y - 2.5, label, 'right');
   }
   doc.save();
   doc.rect(p.x, p.y - 1, p.width, p.height + 2).clip();
   doc.lineCap('round').lineJoin('round');
   if (polyline(doc, pic.trace)) stroke(doc, pic.tracePaint, 1.8);
   doc.restore();
+  if (pic.goal) {
+    // The goal's label last, on a paper patch, so neither the trace nor an edge line crosses it.
+    const label = { size: 6, weight: 'semibold' as const, paint: pic.goal.paint };
+    const w = text.width(pic.goal.text, label);
+    doc.rect(p.x + p.width - 5 - w, pic.goal.y - 9, w + 4, 7.5).fillColor(REPORT_PALETTE.paper.colour, 0.92).fill();
+    text.draw(pic.goal.text, p.x + p.width - 3, pic.goal.y - 2.5, label, 'right');
+  }
   doc.restore();
 
   text.draw(pic.xLabel, p.x + p.width / 2, p.y + p.height + 18, { size: 6.5, paint: REPORT_PALETTE.inkSoft }, 'center');
