@@ -1,7 +1,9 @@
 /**
  * Outgoing mail through nodemailer over SMTP. With `SMTP_URL` set, nodemailer sends through it; without,
- * the server starts its local fake mail server (fake-smtp.ts) and sends there, so invitations and review
- * requests can be read at `GET /api/dev/mailbox` (outside production). `close()` stops the fake server.
+ * outside production, the server starts its local fake mail server (fake-smtp.ts) and sends there, so
+ * invitations and review requests can be read at `GET /api/dev/mailbox`. In production without
+ * `SMTP_URL` nothing can be delivered: `send` rejects (callers report the mail as not sent).
+ * `close()` stops the fake server.
  */
 import nodemailer from 'nodemailer';
 import type { Config } from '../config';
@@ -23,21 +25,31 @@ export interface Mailer {
   close(): Promise<void>;
 }
 
+/** A mail server that does not answer must not hold a request for minutes (nodemailer waits 2 min). */
+const TIMEOUTS = { connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 30_000 };
+
 export async function createMailer(
   config: Pick<Config, 'smtpUrl' | 'mailFrom' | 'nodeEnv'>,
   logger: Logger,
 ): Promise<Mailer> {
+  if (!config.smtpUrl && config.nodeEnv === 'production') {
+    logger.warn('SMTP_URL is not set: invitations and review requests cannot be mailed');
+    return {
+      mailbox: null,
+      send: () => Promise.reject(new Error('SMTP_URL is not set: mail cannot be delivered')),
+      close: async () => undefined,
+    };
+  }
   const mailbox = config.smtpUrl ? null : await startFakeSmtpServer();
-  if (mailbox && config.nodeEnv === 'production')
-    logger.warn('SMTP_URL is not set: mail goes to the local fake mail server and is not delivered');
-  const transport = config.smtpUrl
-    ? nodemailer.createTransport(config.smtpUrl)
-    : nodemailer.createTransport({
-        host: mailbox!.host,
-        port: mailbox!.port,
+  const transport = mailbox
+    ? nodemailer.createTransport({
+        host: mailbox.host,
+        port: mailbox.port,
         secure: false,
         ignoreTLS: true,
-      });
+        ...TIMEOUTS,
+      })
+    : nodemailer.createTransport({ url: config.smtpUrl, ...TIMEOUTS });
 
   return {
     mailbox,

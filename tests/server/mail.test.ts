@@ -9,6 +9,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { decodeEncodedWords, decodeQuotedPrintable, readMessage } from '../../server/mail/mime';
 import { startFakeSmtpServer } from '../../server/mail/fake-smtp';
 import { invitationMail, reviewRequestMail } from '../../server/mail/messages';
+import { createMailer } from '../../server/mail/mailer';
+import { createLogger } from '../../server/logger';
 import { signUp, startTestServer, uniqueEmail, type TestServer } from './helpers/test-server';
 
 function compose(mail: Record<string, unknown>): Promise<Buffer> {
@@ -176,6 +178,18 @@ describe('the server with SMTP_URL set, and in production', () => {
       .expect(202);
     expect(invited.body).toMatchObject({ invited: true, email, mailSent: false });
     expect((await owner.agent.get(`/api/rooms/${roomId}/invitations`).expect(200)).body).toHaveLength(1);
+  });
+
+  it('in production without SMTP_URL no fake server starts and sending fails (so callers say mailSent: false)', async () => {
+    const mailer = await createMailer(
+      { nodeEnv: 'production', mailFrom: 'Matchloom <no-reply@matchloom.invalid>' },
+      createLogger({ logLevel: 'silent', nodeEnv: 'production' }),
+    );
+    expect(mailer.mailbox).toBeNull();
+    await expect(mailer.send({ to: 'a@example.test', subject: 's', text: 't' })).rejects.toThrow(
+      /SMTP_URL is not set/,
+    );
+    await mailer.close();
   });
 
   it('in production GET /api/dev/mailbox is 404', async () => {
