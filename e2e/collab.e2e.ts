@@ -134,7 +134,7 @@ describe('collaboration in the workspace', () => {
     await select(tunerA.page, 'C1');
     const sent = Date.now();
     await typeValue(tunerA.page, '27p');
-    await expect.poll(() => lineOf(page, 'C1'), { intervals: [20] }).toContain('27 pF');
+    await expect.poll(() => lineOf(page, 'C1'), { interval: 20 }).toContain('27 pF');
     console.info(`observer saw the tuner's edit ${Date.now() - sent} ms after it was typed`);
     await expect.poll(() => value.inputValue()).toBe('27 pF');
     await observer.screenshot('collab-02-observer');
