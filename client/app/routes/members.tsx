@@ -6,6 +6,7 @@ import { useInvitations } from '../../features/members/api/get-invitations';
 import { membersQueryOptions, useMembers } from '../../features/members/api/get-members';
 import { AddMemberForm } from '../../features/members/components/add-member-form';
 import { MemberList } from '../../features/members/components/member-list';
+import { DevMailboxLink } from '../../features/mailbox/components/dev-mailbox-link';
 import { useRoom } from '../../features/rooms/api/get-room';
 import { RoomHeader } from '../../features/rooms/components/room-header';
 import { isSignedIn } from '../auth-loader';
@@ -38,6 +39,7 @@ export default function MembersRoute() {
             invitation by e-mail.
           </p>
           <AddMemberForm roomId={room.id} />
+          <DevMailboxLink className="mt-3">Development: read the invitation mail the server sent</DevMailboxLink>
         </section>
       ) : (
         <p className="rounded-xl border border-rule bg-paper-deep/60 px-4 py-3 text-sm text-ink-soft">

@@ -69,7 +69,7 @@ function Charts({ comparison, analyses }: { comparison: { a: CompareSideView; b:
   const b = analyses.b.state === 'done' ? analyses.b : null;
   const chartSize = Math.max(260, Math.min(chartWidth, 560));
   return (
-    <div className="grid gap-4 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
+    <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
       <figure className="rounded-2xl border border-rule bg-card p-3 shadow-xs" aria-label="Smith chart of both designs">
         <div ref={chartBox} className="w-full">
           {b ? (

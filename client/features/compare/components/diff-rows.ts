@@ -75,6 +75,8 @@ const TOP_LEVEL_NAMES: Record<string, string> = {
   'load.ohms': 'Load impedance',
   'load.touchstone': 'Load measurement',
   'load.points': 'Load table',
+  'load.fileName': 'Load measurement file',
+  'load.uploadId': 'Load measurement upload',
 };
 
 const FIELD_NAMES: Record<string, string> = {
@@ -124,6 +126,8 @@ export function formatDiffValue(path: string, value: unknown, elementKind?: stri
     if (path === 'touchstone' || path === 'load.touchstone') return touchstoneSummary(value);
     if (path === 'kind') return kindName(value);
     if (path === 'load.kind') return LOAD_KIND_NAMES[value] ?? value;
+    // Words from a fixed list read as words, not as quoted text.
+    if (path === 'load.topology' || path === 'sweep.spacing' || path === 'tolerance.distribution') return value;
     return `“${value}”`;
   }
   if (isComplex(value)) return complexOhms(value);

@@ -19,6 +19,8 @@ export const invitationSchema = z.looseObject({
   role: roomRoleSchema,
   expiresAt: timeSchema.optional(),
   createdAt: timeSchema.optional(),
+  /** Only in the answer to an invitation just made: false when the mail server refused the message. */
+  mailSent: z.boolean().optional(),
 });
 
 export type Member = z.infer<typeof memberSchema>;

@@ -22,11 +22,17 @@ export function AddMemberForm({ roomId }: { roomId: string }) {
       reset({ email: '', role: input.role });
       if (result.kind === 'added')
         notices.post({ tone: 'success', title: 'Member added', message: `${result.member.displayName} is now ${roleWithArticle(result.member.role)} of this room.` });
+      else if (result.invitation.mailSent === false)
+        notices.post({
+          tone: 'error',
+          title: 'Invitation recorded, not sent',
+          message: `No account uses ${result.invitation.email} yet. The invitation to join as ${roleWithArticle(result.invitation.role)} is kept, but the mail server refused the message: add the address again to resend it.`,
+        });
       else
         notices.post({
           tone: 'info',
           title: 'Invitation recorded',
-          message: `No account uses ${result.invitation.email} yet; an invitation to join as ${roleWithArticle(result.invitation.role)} is kept for that address.`,
+          message: `No account uses ${result.invitation.email} yet; an invitation to join as ${roleWithArticle(result.invitation.role)} is kept for that address and was e-mailed to it, with a link that works once.`,
         });
     },
     onError: (error) => setFormError(showServerErrors(error, ['email', 'role'], setError, { 'already-member': 'email' })),

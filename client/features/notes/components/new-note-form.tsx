@@ -106,15 +106,15 @@ export function NewNoteForm({ roomId, elementIds = [], elementLabels = {}, pin }
         <legend className="mb-1 text-sm font-semibold">Pinned to</legend>
         <div className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
           <label className="flex items-center gap-1.5">
-            <input type="radio" name={`${id}-pin`} checked={pinKind === 'room'} onChange={() => setPinKind('room')} />
+            <input type="radio" className="accent-teal-deep" name={`${id}-pin`} checked={pinKind === 'room'} onChange={() => setPinKind('room')} />
             The whole room
           </label>
           <label className="flex items-center gap-1.5">
-            <input type="radio" name={`${id}-pin`} checked={pinKind === 'element'} disabled={elementChoices.length === 0} onChange={() => setPinKind('element')} />
+            <input type="radio" className="accent-teal-deep" name={`${id}-pin`} checked={pinKind === 'element'} disabled={elementChoices.length === 0} onChange={() => setPinKind('element')} />
             An element
           </label>
           <label className="flex items-center gap-1.5">
-            <input type="radio" name={`${id}-pin`} checked={pinKind === 'frequency'} onChange={() => setPinKind('frequency')} />A frequency
+            <input type="radio" className="accent-teal-deep" name={`${id}-pin`} checked={pinKind === 'frequency'} onChange={() => setPinKind('frequency')} />A frequency
           </label>
         </div>
         {pinKind === 'element' && (

@@ -87,7 +87,7 @@ function buildColumns(renderActions?: (row: SnapshotRow) => ReactNode) {
       sortFn: 'text',
       cell: (info) => <span className="font-bold text-ink">{info.getValue()}</span>,
     }),
-    column.accessor('who', { header: 'Who', sortFn: 'text' }),
+    column.accessor('who', { header: 'Who', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
     column.accessor('createdAt', {
       header: 'When',
       sortFn: 'basic',

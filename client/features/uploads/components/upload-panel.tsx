@@ -49,7 +49,7 @@ function UploadForm({ roomId }: { roomId: string }) {
       if (input.current) input.current.value = '';
       notices.post({ tone: 'success', title: 'Measurement uploaded', message: `${u.fileName}: ${u.ports}-port, ${u.points} points, ${uploadRange(u)}.` });
     },
-    onError: (e) => setError(e.message),
+    onError: (e, { file }) => setError(`“${file.name}” was not accepted: ${e.message}`),
   });
   return (
     <form
