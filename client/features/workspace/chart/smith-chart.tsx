@@ -210,6 +210,12 @@ function SmithChartView(props: SmithChartProps) {
       setView(panView(width, height, d.view, dx, dy));
       return;
     }
+    if (e.buttons !== 0) {
+      // a drag that began elsewhere (a value tuned on the chain canvas) passes over: no read-out
+      if (hover) setHover(null);
+      props.onCursorMove?.(pixelToGamma([x, y], trace.frame));
+      return;
+    }
     hoverAt(x, y);
   };
   const onPointerUp = (e: React.PointerEvent<HTMLDivElement>) => {
