@@ -26,7 +26,9 @@ function FormMessage({ text }: { text: string | null }) {
 }
 
 export function BandForm({ design, editable, onApply }: DesignFormProps) {
-  const initial = useMemo(() => bandFormValues(design), [design.band, design.sweep, design.goal]);
+  // The design is re-read on every document update; follow these fields only when they really changed.
+  const key = JSON.stringify([design.band, design.sweep, design.goal]);
+  const initial = useMemo(() => bandFormValues(design), [key]);
   const form = useForm<BandFormValues, unknown, Pick<Design, 'band' | 'sweep' | 'goal'>>({
     resolver: zodResolver(bandFormSchema),
     defaultValues: initial,
@@ -89,7 +91,8 @@ export function BandForm({ design, editable, onApply }: DesignFormProps) {
 }
 
 export function PortForm({ design, editable, onApply }: DesignFormProps) {
-  const initial = useMemo(() => portFormValues(design), [design.referenceOhms, design.port, design.drive, design.substrate]);
+  const key = JSON.stringify([design.referenceOhms, design.port, design.drive, design.substrate]);
+  const initial = useMemo(() => portFormValues(design), [key]);
   const form = useForm<PortFormValues, unknown, Pick<Design, 'referenceOhms' | 'port' | 'drive' | 'substrate'>>({
     resolver: zodResolver(portFormSchema),
     defaultValues: initial,

@@ -25,7 +25,9 @@ const KIND_OPTIONS = [
 ];
 
 export function LoadForm({ design, editable, onApply }: LoadFormProps) {
-  const initial = useMemo(() => loadFormValues(design.load), [design.load]);
+  // The design is re-read on every document update; follow the load only when it really changed.
+  const loadKey = JSON.stringify(design.load);
+  const initial = useMemo(() => loadFormValues(JSON.parse(loadKey) as Load), [loadKey]);
   const form = useForm<LoadFormValues, unknown, Load>({ resolver: zodResolver(loadFormSchema), defaultValues: initial, mode: 'onBlur' });
   const { register, handleSubmit, reset, watch, setValue, formState } = form;
   const [message, setMessage] = useState<{ tone: 'error' | 'note'; text: string } | null>(null);
