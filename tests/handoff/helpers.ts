@@ -60,7 +60,7 @@ export async function roomWithMembers(server: TestServer, name: string, design: 
 }
 
 /** Binary response bodies for supertest. */
-export function binary(res: NodeJS.ReadableStream & { setEncoding(e: string): void }, cb: (err: Error | null, body: Buffer) => void): void {
+export function binary(res: NodeJS.EventEmitter, cb: (err: Error | null, body: Buffer) => void): void {
   const chunks: Buffer[] = [];
   res.on('data', (c: Buffer) => chunks.push(Buffer.from(c)));
   res.on('end', () => cb(null, Buffer.concat(chunks)));
