@@ -15,6 +15,8 @@ export type RoomStreamStatus = 'connecting' | 'live' | 'offline';
 
 interface Stream {
   socket: Socket;
+  /** Set while the last listener has gone: the stream closes unless another comes soon. */
+  closing: ReturnType<typeof setTimeout> | null;
   listeners: Set<RoomEventListener>;
   statusListeners: Set<(status: RoomStreamStatus) => void>;
   status: RoomStreamStatus;
@@ -28,7 +30,11 @@ export type SocketFactory = () => Socket;
 const defaultFactory: SocketFactory = () =>
   io({ path: '/socket.io', withCredentials: true, transports: ['websocket', 'polling'], reconnectionDelayMax: 10_000 });
 
-export function createRoomEventStreams(factory: SocketFactory = defaultFactory) {
+/**
+ * `lingerMs`: how long a stream stays open after its last listener leaves, so that moving between a
+ * room's pages (snapshots, notes, ...) keeps one connection instead of reconnecting.
+ */
+export function createRoomEventStreams(factory: SocketFactory = defaultFactory, { lingerMs = 3000 }: { lingerMs?: number } = {}) {
   const streams = new Map<string, Stream>();
 
   const setStatus = (stream: Stream, status: RoomStreamStatus) => {
@@ -39,7 +45,7 @@ export function createRoomEventStreams(factory: SocketFactory = defaultFactory) 
 
   function open(roomId: string): Stream {
     const socket = factory();
-    const stream: Stream = { socket, listeners: new Set(), statusListeners: new Set(), status: 'connecting' };
+    const stream: Stream = { socket, closing: null, listeners: new Set(), statusListeners: new Set(), status: 'connecting' };
     socket.on('connect', () => {
       socket.emit(ROOM_EVENTS.join, { roomId }, (reply: JoinReply) => {
         if (!reply?.ok) {
@@ -71,6 +77,10 @@ export function createRoomEventStreams(factory: SocketFactory = defaultFactory) 
     /** Listen to a room's events; returns the function that stops listening. */
     subscribe(roomId: string, listener: RoomEventListener, onStatus?: (status: RoomStreamStatus) => void): () => void {
       const stream = streams.get(roomId) ?? open(roomId);
+      if (stream.closing) {
+        clearTimeout(stream.closing);
+        stream.closing = null;
+      }
       stream.listeners.add(listener);
       if (onStatus) {
         stream.statusListeners.add(onStatus);
@@ -81,7 +91,11 @@ export function createRoomEventStreams(factory: SocketFactory = defaultFactory) 
       return () => {
         stream.listeners.delete(listener);
         if (onStatus) stream.statusListeners.delete(onStatus);
-        if (stream.listeners.size === 0 && streams.get(roomId) === stream) close(roomId, stream);
+        if (stream.listeners.size > 0 || streams.get(roomId) !== stream || stream.closing) return;
+        stream.closing = setTimeout(() => {
+          stream.closing = null;
+          if (stream.listeners.size === 0 && streams.get(roomId) === stream) close(roomId, stream);
+        }, lingerMs);
       };
     },
   };
