@@ -3,7 +3,7 @@
  * fuzzed and access-checked without anyone listing it here). The app is built with the real factory and
  * stand-in collaborators; it never serves a request.
  */
-import { createApp } from '../../../server/app';
+import { createApp, type AppDeps } from '../../../server/app';
 import { loadConfig } from '../../../server/config';
 import { createKnex } from '../../../server/db';
 import { createLogger } from '../../../server/logger';
@@ -50,7 +50,7 @@ export async function listApiRoutes(): Promise<ApiRoute[]> {
   const config = loadConfig({ NODE_ENV: 'test', DATABASE_FILE: ':memory:', LOG_LEVEL: 'silent', JWT_SECRET: 'route-listing-secret-of-32-chars-or-more' });
   const knex = createKnex(':memory:');
   try {
-    const app = createApp({
+    const known = {
       config,
       knex,
       tokens: createTokenService(config.jwtSecret),
@@ -60,7 +60,12 @@ export async function listApiRoutes(): Promise<ApiRoute[]> {
       isReady: () => true,
       demoAccounts: () => false,
       clientDir: null,
-    }) as unknown as { router: { stack: Layer[] } };
+    };
+    // Collaborators added to AppDeps later (mailer, document sinks, ...) are never called while the
+    // routes are only listed: a stand-in that answers anything with itself will do.
+    const standIn: unknown = new Proxy(() => standIn, { get: () => standIn });
+    const deps = new Proxy(known, { get: (target, prop) => (prop in target ? target[prop as keyof typeof target] : standIn) });
+    const app = createApp(deps as unknown as AppDeps) as unknown as { router: { stack: Layer[] } };
     const out: ApiRoute[] = [];
     walk(app.router.stack, '', out);
     const seen = new Set<string>();
