@@ -132,10 +132,17 @@ describe('collaboration in the workspace', () => {
 
     // The tuner's edit reaches the observer's screen while it watches.
     await select(tunerA.page, 'C1');
-    const sent = Date.now();
-    await typeValue(tunerA.page, '27p');
-    await expect.poll(() => lineOf(page, 'C1'), { interval: 20 }).toContain('27 pF');
-    console.info(`observer saw the tuner's edit ${Date.now() - sent} ms after it was typed`);
+    const field = inspector(tunerA.page).getByLabel('Value (F)', { exact: true });
+    await field.fill('27p');
+    // Watch in the observer's page itself, so the time measured is the edit's trip, not the test's polling.
+    const seen = page.waitForFunction(() => document.querySelector('[data-testid="chain-list"]')?.textContent?.includes('27 pF') ? Date.now() : 0, undefined, {
+      polling: 'raf',
+    });
+    const sent = await tunerA.page.evaluate(() => Date.now());
+    await field.press('Enter');
+    const arrived = (await (await seen).jsonValue()) as number;
+    console.info(`the observer's screen showed the tuner's edit ${arrived - sent} ms after Enter`);
+    await expect.poll(() => lineOf(page, 'C1')).toContain('27 pF');
     await expect.poll(() => value.inputValue()).toBe('27 pF');
     await observer.screenshot('collab-02-observer');
     observer.assertClean();
