@@ -157,7 +157,7 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
       }
       const { roomId, userId, role } = outcome;
       const r = room!;
-      if (r.state !== 'open') {
+      if (r.state !== 'open' || closing) {
         r.release();
         ws.close(COLLAB_CLOSE.goingAway, 'the room is unloading; reconnect');
         return;
