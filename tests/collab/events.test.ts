@@ -186,6 +186,24 @@ describe('room log', () => {
   });
 });
 
+describe('room log while edits go on', () => {
+  it('a member joining mid-burst gets the latest wording of the entry being merged', async () => {
+    const t = world.peer(tuner, roomId);
+    await t.synced;
+    const row = () => world.server.knex('room_log').where({ room_id: roomId }).orderBy('id', 'desc').first('message');
+    setElementField(t.doc, 'l1', 'value', 5.6e-9);
+    await until('the entry to be stored', async () => (await row())?.message === 'Tuner changed L1 from 3.3 nH to 5.6 nH');
+    setElementField(t.doc, 'l1', 'value', 6.8e-9);
+    await until('the second edit to be accepted', async () => (await world.design(owner, roomId)).elements.some((e: { value?: number }) => e.value === 6.8e-9));
+    expect((await row())?.message).toBe('Tuner changed L1 from 3.3 nH to 5.6 nH'); // the row is rewritten later
+    const late = await connect(observer);
+    const reply = await join(late);
+    expect(reply.ok && reply.log.at(-1)?.message).toBe('Tuner changed L1 from 3.3 nH to 6.8 nH');
+    t.destroy();
+    late.socket.disconnect();
+  });
+});
+
 describe('follow mode', () => {
   it("relays a member's view to their followers in the room and to nobody else", async () => {
     const other = await world.createRoom(owner);
