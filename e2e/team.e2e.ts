@@ -385,4 +385,20 @@ describe('team features', () => {
     await page.getByRole('heading', { level: 1, name: branchName }).waitFor();
     tuner.assertClean();
   });
+
+  it('turns review e-mails off from the account page', async () => {
+    const { page, context } = observer;
+    await page.getByRole('link', { name: 'Account' }).click();
+    await page.waitForURL((url) => url.pathname === '/account');
+    const box = page.getByRole('checkbox', { name: /E-mail me when a snapshot in one of my rooms is marked for review/ });
+    expect(await box.isChecked()).toBe(true);
+    await box.uncheck();
+    await page.getByRole('status').filter({ hasText: 'Settings saved' }).waitFor();
+    const me = (await (await context.request.get('/api/me')).json()) as { notifyReviews: boolean };
+    expect(me.notifyReviews).toBe(false);
+    await page.reload();
+    await page.getByRole('heading', { name: 'Your account' }).waitFor();
+    expect(await page.getByRole('checkbox', { name: /E-mail me when/ }).isChecked()).toBe(false);
+    observer.assertClean();
+  });
 });

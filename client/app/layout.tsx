@@ -28,6 +28,9 @@ function AppBar({ displayName, wide }: { displayName: string; wide: boolean }) {
           <span className="hidden text-sm text-ink-soft sm:inline">
             Signed in as <strong className="font-bold text-ink">{displayName}</strong>
           </span>
+          <Link to={paths.account.getHref()} className="rounded-md px-1.5 text-sm font-semibold text-ink-soft hover:text-ink hover:underline">
+            Account
+          </Link>
           <Button variant="secondary" size="sm" busy={signOut.isPending} busyLabel="Signing out…" onClick={() => signOut.mutate()}>
             Sign out
           </Button>

@@ -48,6 +48,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.rooms.path, lazy: () => import('./routes/rooms').then(load) },
             { path: paths.room.path, lazy: () => import('./routes/room').then(load) },
             { path: paths.members.path, lazy: () => import('./routes/members').then(load) },
+            { path: paths.account.path, lazy: () => import('./routes/account').then(load) },
             { path: paths.snapshots.path, lazy: () => import('./routes/snapshots').then(load) },
             { path: paths.lineage.path, lazy: () => import('./routes/lineage').then(load) },
             { path: paths.compare.path, lazy: () => import('./routes/compare').then(load) },

@@ -58,6 +58,7 @@ export const paths = {
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
   },
   mailbox: { path: '/dev/mailbox', getHref: () => '/dev/mailbox' },
+  account: { path: '/account', getHref: () => '/account' },
 } as const;
 
 /**

@@ -47,6 +47,7 @@ const notes: Note[] = [
   note('r1', { parentId: 'n1', body: 'Yes: 50 V part, 3 V peak here', createdAt: t0 + 2000 }),
   note('n3', { body: 'Old question', resolved: true, resolvedBy: tuner, resolvedAt: t0 + 500, createdAt: t0 - 5000 }),
   note('n4', { body: 'Pinned to a removed element', elementId: 'gone', createdAt: t0 + 3000, author: observer }),
+  note('n5', { body: 'C1 at the band centre', elementId: 'c-series', frequencyHz: 2.44175e9, createdAt: t0 - 9000, resolved: true }),
 ];
 
 /** A fetch that answers by method and path, and records each request. */
@@ -98,10 +99,10 @@ const threadCards = () => screen.getAllByRole('article');
 describe('noteThreads', () => {
   it('puts replies under their first note and lists open threads first, most recently active first', () => {
     const threads = noteThreads(notes);
-    expect(threads.map((t) => t.root.id)).toEqual(['n4', 'n1', 'n2', 'n3']);
+    expect(threads.map((t) => t.root.id)).toEqual(['n4', 'n1', 'n2', 'n3', 'n5']);
     expect(threads[1].replies.map((r) => r.id)).toEqual(['r1']);
     expect(threads[1].lastActivity).toBe(t0 + 2000);
-    expect(filterThreads(threads, 'resolved').map((t) => t.root.id)).toEqual(['n3']);
+    expect(filterThreads(threads, 'resolved').map((t) => t.root.id)).toEqual(['n3', 'n5']);
     expect(filterThreads(threads, 'open')).toHaveLength(3);
   });
 
@@ -130,15 +131,18 @@ describe('NotesPanel', () => {
     expect(within(c2).getByText('Is C2 rated for the drive power?')).toBeTruthy();
     const replies = within(c2).getByRole('list', { name: 'Replies' });
     expect(within(replies).getByText('Yes: 50 V part, 3 V peak here')).toBeTruthy();
-    // 2.4835 GHz to five figures (common practice for band edges).
+    // Band edges and centres to six figures, trailing zeros dropped (common practice).
     expect(within(edge).getByText('at 2.4835 GHz')).toBeTruthy();
     expect(within(gone).getByText('on gone (no longer in the chain)')).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Open (3)' }).getAttribute('aria-pressed')).toBe('true');
 
-    await userEvent.click(screen.getByRole('button', { name: 'Resolved (1)' }));
-    expect(threadCards()).toHaveLength(1);
+    await userEvent.click(screen.getByRole('button', { name: 'Resolved (2)' }));
+    expect(threadCards()).toHaveLength(2);
     expect(within(threadCards()[0]).getByText('Resolved by Demo Tuner')).toBeTruthy();
     expect(within(threadCards()[0]).getByRole('button', { name: 'Reopen' })).toBeTruthy();
+    // Pinned to an element and a frequency: both are shown.
+    expect(within(threadCards()[1]).getByText('on C1 (series C)')).toBeTruthy();
+    expect(within(threadCards()[1]).getByText('at 2.44175 GHz')).toBeTruthy();
   });
 
   it('gives an observer Reply and Post note, Resolve and Delete only on their own notes', async () => {

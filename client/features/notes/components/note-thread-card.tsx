@@ -11,7 +11,7 @@ import { useDeleteNote } from '../api/delete-note';
 import { useUpdateNote } from '../api/update-note';
 import { canDeleteNote, canResolveNote } from './note-permissions';
 import { NoteTextArea } from './note-text-area';
-import { notePin, type NoteThread } from './note-threads';
+import { notePins, type NotePin, type NoteThread } from './note-threads';
 
 export interface NoteThreadCardProps {
   roomId: string;
@@ -43,12 +43,11 @@ function Byline({ note }: { note: Note }) {
   );
 }
 
-function PinChip({ note, elementIds, elementLabels = {}, onFocusElement, onFocusFrequency }: Omit<NoteThreadCardProps, 'roomId' | 'thread' | 'role' | 'userId'> & { note: Note }) {
-  const pin = notePin(note);
+function PinChip({ pin, elementIds, elementLabels = {}, onFocusElement, onFocusFrequency }: Omit<NoteThreadCardProps, 'roomId' | 'thread' | 'role' | 'userId'> & { pin: NotePin }) {
   const chip = 'inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs font-bold';
   if (pin.kind === 'room') return <span className={cx(chip, 'border-rule bg-paper text-ink-soft')}>the whole room</span>;
   if (pin.kind === 'frequency') {
-    const text = `at ${formatEngineering(pin.hz, 'Hz', { digits: 5 })}`;
+    const text = `at ${formatEngineering(pin.hz, 'Hz', { digits: 6 })}`;
     return onFocusFrequency ? (
       <button type="button" className={cx(chip, 'border-amber/60 bg-amber-soft text-amber-deep hover:border-amber-deep')} onClick={() => onFocusFrequency(pin.hz)} title="Show this frequency on the chart">
         {text}
@@ -121,7 +120,11 @@ export function NoteThreadCard(props: NoteThreadCardProps) {
       className={cx('flex flex-col gap-2 rounded-xl border bg-card p-3 shadow-xs', root.resolved ? 'border-rule opacity-80' : 'border-amber/50')}
     >
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <PinChip note={root} {...props} />
+        <span className="flex flex-wrap gap-1.5">
+          {notePins(root).map((pin) => (
+            <PinChip key={pin.kind} pin={pin} elementIds={props.elementIds} elementLabels={props.elementLabels} onFocusElement={props.onFocusElement} onFocusFrequency={props.onFocusFrequency} />
+          ))}
+        </span>
         {root.resolved && (
           <span className="text-xs font-bold text-teal-deep">
             Resolved{root.resolvedBy ? ` by ${root.resolvedBy.displayName}` : ''}

@@ -37,8 +37,10 @@ export function filterThreads(threads: readonly NoteThread[], filter: ThreadFilt
 
 export type NotePin = { kind: 'room' } | { kind: 'element'; elementId: string } | { kind: 'frequency'; hz: number };
 
-export function notePin(note: Note): NotePin {
-  if (note.elementId !== null) return { kind: 'element', elementId: note.elementId };
-  if (note.frequencyHz !== null) return { kind: 'frequency', hz: note.frequencyHz };
-  return { kind: 'room' };
+/** Where a note is pinned: an element, a frequency, both, or (neither) the whole room. */
+export function notePins(note: Note): NotePin[] {
+  const pins: NotePin[] = [];
+  if (note.elementId !== null) pins.push({ kind: 'element', elementId: note.elementId });
+  if (note.frequencyHz !== null) pins.push({ kind: 'frequency', hz: note.frequencyHz });
+  return pins.length ? pins : [{ kind: 'room' }];
 }
