@@ -211,6 +211,19 @@ describe('team features', () => {
     // The VSWR view of the same two.
     await page.getByRole('button', { name: 'VSWR', exact: true }).click();
     await page.getByText('VSWR across the sweep').waitFor();
+
+    // On a phone the page stacks and never scrolls sideways (wide tables scroll inside their own frame).
+    await page.setViewportSize({ width: 390, height: 844 });
+    for (const path of [`/rooms/${branchId}/compare?a=${baselineId}&b=live`, `/rooms/${whipId}/snapshots`]) {
+      await page.goto(path);
+      await page.getByRole('navigation', { name: 'Room pages' }).waitFor();
+      if (path.includes('compare')) await waitForCharts(page);
+      else await page.getByRole('table', { name: 'The room’s snapshots' }).getByText(baseline).waitFor();
+      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+      expect(overflow, path).toBeLessThanOrEqual(0);
+    }
+    await tuner.screenshot('team-03b-snapshots-narrow');
+    await page.setViewportSize({ width: 1440, height: 960 });
     tuner.assertClean();
   });
 
