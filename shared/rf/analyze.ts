@@ -11,7 +11,7 @@
  * Nothing is allocated per point. See README.md for units, layouts and null conventions.
  */
 import { bandwidthAround, worstInBand, type Bandwidth, type WorstInBand } from './bandwidth';
-import { chainZin, gammaFromZin, impedanceRatio, lineAngles, lineAnglesAdvance, portImpedance, sweepContext } from './cascade';
+import { chainZin, chainZinOfPlan, gammaFromZin, impedanceRatio, lineAngles, lineAnglesAdvance, portImpedance, sweepContext } from './cascade';
 import { IMPEDANCE_OPEN_OHMS } from './complex';
 import { goalMaxGamma, type Complex, type Design } from './design';
 import { chainPlan, type ChainPlan } from './elements';
@@ -19,7 +19,7 @@ import { RETURN_LOSS_FLOOR_GAMMA } from './figures';
 import { centerFrequency, sweepFrequencies } from './frequency';
 import { bodeFanoLimit, type Limit } from './limit';
 import { loadImpedances } from './loads';
-import { chainNodesAt, nodeImpedances, stressAt, type ElementStress } from './stress';
+import { chainNodesAt, nodeImpedances, stressFromNodes, type ElementStress } from './stress';
 
 const TWO_PI = 2 * Math.PI;
 // Kind codes and the stub floor of elements.ts, repeated so the hot switch compares against local
@@ -111,7 +111,7 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
   const s22 = new Float64Array(2 * n);
   const { kinds, p, tables, count } = plan;
   const angles = lineAngles(plan, freqs);
-  const { cs, sn } = angles;
+  const ang = angles.a;
   const [zsr, zsi] = zs;
   const iz0 = 1 / z0;
 
@@ -163,8 +163,8 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
           break;
         case K_LINE: {
           const z0l = p[o];
-          const c = cs[e];
-          const s = sn[e];
+          const c = ang[o];
+          const s = ang[o + 1];
           if (p[o + 3] === 0) {
             // Lossless: [cos, jZ0 sin; j sin/Z0, cos]·T.
             const bs = z0l * s, cs1 = s / z0l;
@@ -193,8 +193,8 @@ function chainSweep(plan: ChainPlan, freqs: Float64Array, loadZ: Float64Array, z
         case K_OPEN_STUB:
         case K_SHORT_STUB: {
           const z0l = p[o];
-          const c = cs[e];
-          const s = sn[e];
+          const c = ang[o];
+          const s = ang[o + 1];
           const chr = p[o + 2] * c, chi = p[o + 3] * s;
           const shr = p[o + 3] * c, shi = p[o + 2] * s;
           let nr = shr, ni = shi, qr = chr, qi = chi; // Y·z0 = num/den
@@ -341,15 +341,6 @@ function reflectionFigures(mags: Float64Array, vswr: Float64Array, returnLossDb:
   }
 }
 
-/** |Γ| at arbitrary frequencies through the fast path. */
-function gammaMagnitudesAt(design: Design, freqs: Float64Array): Float64Array {
-  const ctx = sweepContext(design, freqs);
-  const g = gammaFromZin(chainZin(ctx, design.elements), ctx.zs);
-  const out = new Float64Array(freqs.length);
-  for (let i = 0; i < freqs.length; i++) out[i] = Math.hypot(g[2 * i], g[2 * i + 1]);
-  return out;
-}
-
 /**
  * The full analysis of a checked design (from `parseDesign`). Throws DesignError (with the JSON
  * path) for measured data that do not parse or do not cover the frequencies needed.
@@ -364,16 +355,19 @@ export function analyze(design: Design): AnalysisResult {
   const centerHz = centerFrequency(design);
   const maxGamma = goalMaxGamma(design.goal);
   const { startHz, stopHz } = design.band;
-  const [gCenter, gStart, gStop] = gammaMagnitudesAt(design, Float64Array.of(centerHz, startHz, stopHz));
+  // The centre and both band edges, exactly (fast path on a 3-point grid).
+  const extra = sweepContext(design, Float64Array.of(centerHz, startHz, stopHz));
+  const reusable = plan.tables.every((t) => t === null); // two-port tables are per grid point
+  const g = gammaFromZin(reusable ? chainZinOfPlan(extra, plan) : chainZin(extra, design.elements), extra.zs);
+  const [gCenter, gStart, gStop] = [0, 1, 2].map((k) => Math.hypot(g[2 * k], g[2 * k + 1]));
 
   const bandwidth = bandwidthAround(freqs, out.gammaMagnitude, centerHz, gCenter, maxGamma);
   const worst = worstInBand(freqs, out.gammaMagnitude, startHz, stopHz, [gStart, gStop]);
   const limit = bodeFanoLimit(design, centerHz, maxGamma, bandwidth ? bandwidth.fractional : null);
 
-  const zl = loadImpedances(design.load, design.referenceOhms, Float64Array.of(centerHz));
-  const stagesZ = nodeImpedances(chainNodesAt(design.elements, [zl[0], zl[1]], centerHz));
-  const stagesAtCenter: Stage[] = stagesZ.map((z, k) => ({ after: k === 0 ? 'load' : design.elements[k - 1].id, z }));
-  const stressAtCenter = design.drive ? stressAt(design, centerHz, design.drive.powerW) : null;
+  const nodes = chainNodesAt(design.elements, [extra.loadZ[0], extra.loadZ[1]], centerHz, plan);
+  const stagesAtCenter: Stage[] = nodeImpedances(nodes).map((z, k) => ({ after: k === 0 ? 'load' : design.elements[k - 1].id, z }));
+  const stressAtCenter = design.drive ? stressFromNodes(design, nodes, design.drive.powerW) : null;
 
   return {
     frequenciesHz: freqs,

@@ -68,13 +68,17 @@ export function sweepContext(design: Design, freqs: Float64Array = sweepFrequenc
  * interleaved re, im per frequency. Throws DesignError for a two-port whose data do not cover the grid.
  */
 export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: Float64Array): Float64Array {
+  return chainZinOfPlan(ctx, chainPlan(elements, ctx.freqs), out);
+}
+
+/** chainZin for an already compiled plan (its two-port tables, if any, must be for `ctx.freqs`). */
+export function chainZinOfPlan(ctx: SweepContext, plan: ChainPlan, out?: Float64Array): Float64Array {
   const { freqs, loadZ } = ctx;
   const n = freqs.length;
   const res = out ?? new Float64Array(2 * n);
-  const plan = chainPlan(elements, freqs);
   const { kinds, p, tables, count } = plan;
   const angles = lineAngles(plan, freqs);
-  const { cs, sn } = angles;
+  const ang = angles.a;
   for (let i = 0; i < n; i++) {
     const f = freqs[i];
     const w = TWO_PI * f;
@@ -136,8 +140,8 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
           break;
         case K_LINE: {
           const z0 = p[o];
-          const c = cs[e];
-          const s = sn[e];
+          const c = ang[o];
+          const s = ang[o + 1];
           if (p[o + 3] === 0) {
             // Lossless: A = D = cos βl, B = jZ0 sin βl, C = j sin βl / Z0.
             const zs = z0 * s, ys = s / z0;
@@ -168,8 +172,8 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
         case K_SHORT_STUB: {
           // Open: N' = N·cosh, D' = D·cosh + N·sinh/z0. Short: the same with cosh and sinh swapped.
           const z0 = p[o];
-          const c = cs[e];
-          const s = sn[e];
+          const c = ang[o];
+          const s = ang[o + 1];
           let ar = p[o + 2] * c, ai = p[o + 3] * s;
           let sr = p[o + 3] * c, si = p[o + 2] * s;
           if (kinds[e] === K_SHORT_STUB) {
@@ -233,62 +237,59 @@ export function chainZin(ctx: SweepContext, elements: readonly Element[], out?: 
 const ANGLE_RESYNC = 16;
 
 /**
- * cos βl and sin βl of every line and stub at the current grid point. On a uniformly spaced grid
- * they advance by a fixed rotation (angle addition: 4 multiplications instead of two trigonometric
- * calls) and are recomputed exactly every ANGLE_RESYNC points, which bounds the drift to a few
- * ulps; on any other grid they are computed directly at each point.
+ * cos βl and sin βl of every line and stub at the current grid point, in one array with the
+ * plan's stride: `a[4e]` = cos, `a[4e + 1]` = sin, `a[4e + 2]`, `a[4e + 3]` = cos, sin of the
+ * per-step rotation. On a uniformly spaced grid they advance by that fixed rotation (angle addition:
+ * 4 multiplications instead of two trigonometric calls) and are recomputed exactly every
+ * ANGLE_RESYNC points, which bounds the drift to a few ulps; on any other grid they are computed
+ * directly at each point.
  */
 export interface LineAngles {
-  readonly lines: Int32Array;
+  readonly lines: number[];
   readonly radPerHz: Float64Array;
-  readonly cs: Float64Array;
-  readonly sn: Float64Array;
-  readonly cd: Float64Array;
-  readonly sd: Float64Array;
+  readonly a: Float64Array;
   readonly uniform: boolean;
 }
 
 export function lineAngles(plan: ChainPlan, freqs: Float64Array): LineAngles {
-  const idx: number[] = [];
+  const lines: number[] = [];
   for (let e = 0; e < plan.count; e++) {
     const k = plan.kinds[e];
-    if (k === K_LINE || k === K_OPEN_STUB || k === K_SHORT_STUB) idx.push(e);
+    if (k === K_LINE || k === K_OPEN_STUB || k === K_SHORT_STUB) lines.push(e);
   }
   const n = freqs.length;
-  let uniform = n > 2;
+  let uniform = n > 2 && lines.length > 0;
   const step = n > 1 ? freqs[1] - freqs[0] : 0;
   for (let i = 2; uniform && i < n; i++) if (Math.abs(freqs[i] - freqs[i - 1] - step) > 1e-12 * Math.abs(freqs[i])) uniform = false;
-  const count = plan.count;
-  const radPerHz = new Float64Array(count);
-  const cd = new Float64Array(count);
-  const sd = new Float64Array(count);
-  for (const e of idx) {
-    radPerHz[e] = plan.p[4 * e + 1];
-    cd[e] = Math.cos(radPerHz[e] * step);
-    sd[e] = Math.sin(radPerHz[e] * step);
-  }
-  return { lines: Int32Array.from(idx), radPerHz, cs: new Float64Array(count), sn: new Float64Array(count), cd, sd, uniform };
+  const a = new Float64Array(4 * plan.count);
+  if (uniform)
+    for (const e of lines) {
+      a[4 * e + 2] = Math.cos(plan.p[4 * e + 1] * step);
+      a[4 * e + 3] = Math.sin(plan.p[4 * e + 1] * step);
+    }
+  return { lines, radPerHz: plan.p, a, uniform };
 }
 
-export function lineAnglesAdvance(a: LineAngles, i: number, f: number): void {
-  const { lines, cs, sn } = a;
+export function lineAnglesAdvance(angles: LineAngles, i: number, f: number): void {
+  const { lines, a } = angles;
   const m = lines.length;
   if (m === 0) return;
-  if (!a.uniform || i % ANGLE_RESYNC === 0) {
+  if (!angles.uniform || i % ANGLE_RESYNC === 0) {
+    const p = angles.radPerHz;
     for (let j = 0; j < m; j++) {
-      const e = lines[j];
-      const th = a.radPerHz[e] * f;
-      cs[e] = Math.cos(th);
-      sn[e] = Math.sin(th);
+      const o = 4 * lines[j];
+      const th = p[o + 1] * f;
+      a[o] = Math.cos(th);
+      a[o + 1] = Math.sin(th);
     }
     return;
   }
-  const { cd, sd } = a;
   for (let j = 0; j < m; j++) {
-    const e = lines[j];
-    const c = cs[e];
-    cs[e] = c * cd[e] - sn[e] * sd[e];
-    sn[e] = sn[e] * cd[e] + c * sd[e];
+    const o = 4 * lines[j];
+    const c = a[o];
+    const s = a[o + 1];
+    a[o] = c * a[o + 2] - s * a[o + 3];
+    a[o + 1] = s * a[o + 2] + c * a[o + 3];
   }
 }
 

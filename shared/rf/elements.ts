@@ -113,16 +113,17 @@ export function twoPortAbcd(e: Extract<Element, { kind: 'two-port' }>, freqs: Fl
 
 const UNIT: Record<string, string> = { l: 'henries', c: 'farads', r: 'ohms' };
 
+const isPositive = (v: unknown): boolean => typeof v === 'number' && v > 0 && v < Infinity;
+const isNonNegative = (v: unknown): boolean => typeof v === 'number' && v >= 0 && v < Infinity;
+function invalid(path: string, field: string, reason: string): never {
+  throw new DesignError(`${path}.${field}`, reason);
+}
+
 /**
  * The numeric checks of the design schema, repeated cheaply for chains built in code (refine,
  * yield, the match finder), so a negative or non-finite value is a DesignError, never NaN.
  */
 function elementCheck(e: Element, path: string): void {
-  const bad = (field: string, reason: string) => {
-    throw new DesignError(`${path}.${field}`, reason);
-  };
-  const positive = (v: unknown) => typeof v === 'number' && Number.isFinite(v) && v > 0;
-  const nonNegative = (v: unknown) => typeof v === 'number' && Number.isFinite(v) && v >= 0;
   switch (e.kind) {
     case 'series-l':
     case 'series-c':
@@ -130,26 +131,27 @@ function elementCheck(e: Element, path: string): void {
     case 'shunt-l':
     case 'shunt-c':
     case 'shunt-r':
-      if (!positive(e.value)) bad('value', `must be a positive number of ${UNIT[e.kind.slice(-1)]}`);
-      if (e.q !== undefined && !positive(e.q)) bad('q', 'must be a positive number of (quality factor)');
+      if (!isPositive(e.value)) invalid(path, 'value', `must be a positive number of ${UNIT[e.kind.slice(-1)]}`);
+      if (e.q !== undefined && !isPositive(e.q)) invalid(path, 'q', 'must be a positive number of (quality factor)');
       return;
     case 'line':
     case 'open-stub':
     case 'short-stub': {
-      if (!positive(e.z0)) bad('z0', 'must be a positive number of ohms');
-      if (e.lossDbPerM !== undefined && !nonNegative(e.lossDbPerM)) bad('lossDbPerM', 'must be zero or a positive number of dB per metre');
+      if (!isPositive(e.z0)) invalid(path, 'z0', 'must be a positive number of ohms');
+      if (e.lossDbPerM !== undefined && !isNonNegative(e.lossDbPerM)) invalid(path, 'lossDbPerM', 'must be zero or a positive number of dB per metre');
       const len = e.length as Record<string, unknown>;
       if ('degrees' in len) {
-        if (!nonNegative(len.degrees)) bad('length.degrees', 'must be zero or a positive number of degrees');
-        if (!positive(len.atHz)) bad('length.atHz', 'must be a positive number of hertz');
+        if (!isNonNegative(len.degrees)) invalid(path, 'length.degrees', 'must be zero or a positive number of degrees');
+        if (!isPositive(len.atHz)) invalid(path, 'length.atHz', 'must be a positive number of hertz');
       } else {
-        if (!nonNegative(len.meters)) bad('length.meters', 'must be zero or a positive number of metres');
-        if (!positive(len.velocityFactor) || (len.velocityFactor as number) > 1) bad('length.velocityFactor', 'must be a velocity factor, 0 < v ≤ 1');
+        if (!isNonNegative(len.meters)) invalid(path, 'length.meters', 'must be zero or a positive number of metres');
+        if (!isPositive(len.velocityFactor) || (len.velocityFactor as number) > 1)
+          invalid(path, 'length.velocityFactor', 'must be a velocity factor, 0 < v ≤ 1');
       }
       return;
     }
     case 'transformer':
-      if (!positive(e.ratio)) bad('ratio', 'must be a positive number of (turns ratio)');
+      if (!isPositive(e.ratio)) invalid(path, 'ratio', 'must be a positive number of (turns ratio)');
       return;
     case 'two-port':
       return;
@@ -171,7 +173,11 @@ export function chainPlan(
     const code = KIND_CODE[e.kind];
     if (code === undefined) throw new DesignError(`${pathOf(i)}.kind`, `unknown kind ${JSON.stringify((e as { kind: unknown }).kind)}`);
     kinds[i] = code;
-    elementCheck(e, pathOf(i));
+    try {
+      elementCheck(e, '');
+    } catch (err) {
+      throw err instanceof DesignError ? new DesignError(`${pathOf(i)}${err.path}`, err.reason) : err;
+    }
     const o = 4 * i;
     switch (e.kind) {
       case 'series-l':

@@ -14,7 +14,7 @@
  */
 import { impedanceRatio } from './cascade';
 import { type Complex, type Design, type Element } from './design';
-import { chainPlan, elementAbcdAt } from './elements';
+import { chainPlan, elementAbcdAt, type ChainPlan } from './elements';
 import { loadImpedances } from './loads';
 
 export interface ChainNodes {
@@ -31,10 +31,10 @@ export interface ElementStress {
 }
 
 /** Unscaled node voltages and currents (load current 1) of `elements` on load impedance `zLoad` at `hz`. */
-export function chainNodesAt(elements: readonly Element[], zLoad: Complex, hz: number): ChainNodes {
+export function chainNodesAt(elements: readonly Element[], zLoad: Complex, hz: number, compiled?: ChainPlan): ChainNodes {
   const m = elements.length;
-  const freqs = Float64Array.of(hz);
-  const plan = chainPlan(elements, freqs);
+  // A plan compiled for another grid will do unless it holds two-port tables (they are per grid point).
+  const plan = compiled && compiled.tables.every((t) => t === null) ? compiled : chainPlan(elements, Float64Array.of(hz));
   const v = new Float64Array(2 * (m + 1));
   const i = new Float64Array(2 * (m + 1));
   v[0] = zLoad[0];
@@ -77,8 +77,12 @@ const abs = (re: number, im: number) => Math.hypot(re, im);
 /** Peak voltage across and current through each element at `hz` with `powerW` available from the port. */
 export function stressAt(design: Design, hz: number, powerW: number): ElementStress[] {
   const zl = loadImpedances(design.load, design.referenceOhms, Float64Array.of(hz));
+  return stressFromNodes(design, chainNodesAt(design.elements, [zl[0], zl[1]], hz), powerW);
+}
+
+/** The stress figures from the chain's unscaled node values (chainNodesAt) at the frequency of interest. */
+export function stressFromNodes(design: Design, nodes: ChainNodes, powerW: number): ElementStress[] {
   const { elements } = design;
-  const nodes = chainNodesAt(elements, [zl[0], zl[1]], hz);
   const zs = design.port?.impedance ?? [design.referenceOhms, 0];
   const m = elements.length;
   const { v, i } = nodes;
