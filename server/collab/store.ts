@@ -5,6 +5,8 @@
  * (a Knex instance), never a module global.
  */
 import * as Y from 'yjs';
+import { createRequire } from 'node:module';
+import { Worker } from 'node:worker_threads';
 import Database from 'better-sqlite3';
 import type { Knex } from 'knex';
 import { createDesignDoc, readDesign } from '../../shared/collab/schema';
@@ -155,6 +157,9 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
   db.pragma('synchronous = NORMAL'); // as the main connection: durable when the process dies
   db.pragma('foreign_keys = ON');
   db.pragma('busy_timeout = 0'); // never block the event loop on a lock
+  // Checkpoints (the fsyncs) run on a thread of their own, so this connection's commits never wait on the disk.
+  db.pragma('wal_autocheckpoint = 0');
+  const checkpointer = startCheckpointer(filename);
   // Prepared on first use: the hub may be created before the migrations have run.
   let statements: ReturnType<typeof prepare> | null = null;
   function prepare() {
@@ -200,7 +205,32 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
       }
     },
     close() {
+      void checkpointer.terminate();
       if (db.open) db.close();
     },
   };
+}
+
+/** Milliseconds between WAL checkpoints on the checkpoint thread. */
+export const CHECKPOINT_INTERVAL_MS = 1000;
+
+const CHECKPOINTER = `
+const { workerData } = require('node:worker_threads');
+const Database = require(workerData.module);
+const db = new Database(workerData.file);
+db.pragma('busy_timeout = 1000');
+setInterval(() => {
+  try { db.pragma('wal_checkpoint(PASSIVE)'); } catch { /* busy or gone: next time */ }
+}, workerData.intervalMs);
+`;
+
+/** A worker thread that checkpoints the WAL of `file` every CHECKPOINT_INTERVAL_MS (PASSIVE: never blocks writers). */
+function startCheckpointer(file: string): Worker {
+  const worker = new Worker(CHECKPOINTER, {
+    eval: true,
+    workerData: { file, module: createRequire(import.meta.url).resolve('better-sqlite3'), intervalMs: CHECKPOINT_INTERVAL_MS },
+  });
+  worker.on('error', () => {}); // a failed checkpointer only means the main connections checkpoint instead
+  worker.unref();
+  return worker;
 }
