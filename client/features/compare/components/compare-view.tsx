@@ -61,6 +61,17 @@ function FigureCells({ analysis }: { analysis: SideAnalysis }) {
   );
 }
 
+/** Where a chart would be while its design is analysed, or why it cannot be drawn. */
+function Pending({ analysis }: { analysis: SideAnalysis }) {
+  if (analysis.state === 'failed')
+    return (
+      <p role="alert" className="py-8 text-sm font-semibold text-coral-deep">
+        This design cannot be drawn: {analysis.message}
+      </p>
+    );
+  return <Loading label="Analysing…" />;
+}
+
 function Charts({ comparison, analyses }: { comparison: { a: CompareSideView; b: CompareSideView }; analyses: { a: SideAnalysis; b: SideAnalysis } }) {
   const [chartBox, chartWidth] = useElementWidth<HTMLDivElement>(480);
   const [plotBox, plotWidth] = useElementWidth<HTMLDivElement>(560);
@@ -82,7 +93,7 @@ function Charts({ comparison, analyses }: { comparison: { a: CompareSideView; b:
               compare={a ? { result: a.result, path: a.path, label: sideName(comparison.a) } : null}
             />
           ) : (
-            <Loading label="Analysing…" />
+            <Pending analysis={analyses.b} />
           )}
         </div>
         <figcaption className="mt-2 text-xs text-ink-soft">
@@ -117,7 +128,7 @@ function Charts({ comparison, analyses }: { comparison: { a: CompareSideView; b:
               compare={a ? { result: a.result, label: sideName(comparison.a) } : null}
             />
           ) : (
-            <Loading label="Analysing…" />
+            <Pending analysis={analyses.b} />
           )}
         </div>
         <figcaption className="text-xs text-ink-soft">
