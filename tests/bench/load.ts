@@ -89,9 +89,10 @@ function rssMb(pid: number): number {
 }
 
 /** CPU share (% of one core) and peak RSS of the server while `fn` runs. */
-async function measured<T>(pid: number, fn: () => Promise<T>): Promise<{ value: T; cpuPercent: number; peakRssMb: number; endRssMb: number }> {
+async function measured<T>(pid: number, fn: () => Promise<T>): Promise<{ value: T; cpuPercent: number; generatorCpuPercent: number; peakRssMb: number; endRssMb: number }> {
   const t0 = performance.now();
   const c0 = cpuTicks(pid);
+  const g0 = process.cpuUsage();
   let peak = rssMb(pid);
   const timer = setInterval(() => {
     peak = Math.max(peak, rssMb(pid));
@@ -100,8 +101,10 @@ async function measured<T>(pid: number, fn: () => Promise<T>): Promise<{ value: 
     const value = await fn();
     const seconds = (performance.now() - t0) / 1000;
     const cpuPercent = ((cpuTicks(pid) - c0) / CLK_TCK / seconds) * 100;
+    const g = process.cpuUsage(g0);
+    const generatorCpuPercent = ((g.user + g.system) / 1e6 / seconds) * 100;
     const end = rssMb(pid);
-    return { value, cpuPercent, peakRssMb: Math.max(peak, end), endRssMb: end };
+    return { value, cpuPercent, generatorCpuPercent, peakRssMb: Math.max(peak, end), endRssMb: end };
   } finally {
     clearInterval(timer);
   }
@@ -217,6 +220,7 @@ interface HttpRow {
   connections: number;
   result: AutocannonResult;
   cpuPercent: number;
+  generatorCpuPercent: number;
   peakRssMb: number;
 }
 
@@ -229,7 +233,7 @@ async function httpPhase(server: ServerProc, cookie: string, roomId: string): Pr
         autocannon({ url: server.url + route, connections, duration: HTTP_SECONDS, headers: { cookie } }),
       );
       const shown = route.replace(roomId, ':id');
-      rows.push({ route: shown, connections, result: m.value, cpuPercent: m.cpuPercent, peakRssMb: m.peakRssMb });
+      rows.push({ route: shown, connections, result: m.value, cpuPercent: m.cpuPercent, generatorCpuPercent: m.generatorCpuPercent, peakRssMb: m.peakRssMb });
       process.stderr.write(`  ${shown} × ${connections}: ${m.value.requests.average.toFixed(0)} req/s\n`);
     }
   }
@@ -263,7 +267,7 @@ interface SocketFigures {
   presenceEvents: number;
 }
 
-async function socketPhase(server: ServerProc, cookies: string[]): Promise<{ figures: SocketFigures; cpuPercent: number; peakRssMb: number; endRssMb: number; setupRssMb: number }> {
+async function socketPhase(server: ServerProc, cookies: string[]): Promise<{ figures: SocketFigures; cpuPercent: number; generatorCpuPercent: number; peakRssMb: number; endRssMb: number; setupRssMb: number; loadAverage: string }> {
   const wsBase = server.url.replace(/^http/, 'ws');
   const ownerCookie = cookies[0];
   const emails = await Promise.all(cookies.map(async (c) => (await must(call(server.url, c, 'GET', '/api/me'), 200, 'me')).email as string));
@@ -397,12 +401,14 @@ async function socketPhase(server: ServerProc, cookies: string[]): Promise<{ fig
     c.provider.destroy();
     c.doc.destroy();
   }
-  return { figures, cpuPercent: m.cpuPercent, peakRssMb: m.peakRssMb, endRssMb: m.endRssMb, setupRssMb };
+  return { figures, cpuPercent: m.cpuPercent, generatorCpuPercent: m.generatorCpuPercent, peakRssMb: m.peakRssMb, endRssMb: m.endRssMb, setupRssMb, loadAverage: loadavg()[0].toFixed(1) };
 }
 
 // ---- main ----
 
 async function main(): Promise<void> {
+  // 400 socket clients and repeated autocannon runs each add process listeners; that is expected here.
+  process.setMaxListeners(100);
   const dir = mkdtempSync(join(tmpdir(), 'matchloom-load-'));
   let server: ServerProc | null = null;
   let failed: boolean;
@@ -440,7 +446,7 @@ async function main(): Promise<void> {
     console.log(`HTTP read routes, ${HTTP_SECONDS} s per run, session cookie:\n`);
     console.log(
       table(
-        ['route', 'conns', 'req/s', 'MB/s', 'p50 ms', 'p97.5 ms', 'p99 ms', 'max ms', 'errors', 'server CPU %', 'peak RSS MB'],
+        ['route', 'conns', 'req/s', 'MB/s', 'p50 ms', 'p97.5 ms', 'p99 ms', 'max ms', 'errors', 'server CPU %', 'generator CPU %', 'peak RSS MB'],
         httpRows.map((r) => [
           r.route,
           r.connections,
@@ -452,6 +458,7 @@ async function main(): Promise<void> {
           r.result.latency.max,
           errorsOf(r.result),
           r.cpuPercent,
+          r.generatorCpuPercent,
           r.peakRssMb,
         ]),
       ),
@@ -482,7 +489,10 @@ async function main(): Promise<void> {
           ['socket.io join failures', f.joinFailures],
           ['room log events received', f.roomLogEvents],
           ['presence events received', f.presenceEvents],
+          ['edits offered per second (clients × rate)', f.clients * EDIT_HZ],
           ['server CPU while editing (% of one core)', s.cpuPercent],
+          ['load generator CPU while editing (% of one core)', s.generatorCpuPercent],
+          ['machine load average (1 min) after editing', s.loadAverage],
           ['server RSS with all clients connected (MB)', s.setupRssMb],
           ['server peak RSS while editing (MB)', s.peakRssMb],
         ],
