@@ -4,7 +4,7 @@
  * The real server (e2e/support/server.ts, fresh SQLite) serves the built client; Debian's Chromium
  * opens the same room in two browser contexts: a tuner (A, the owner) and a collaborator (B, an
  * observer). The room holds a 10-element chain with a 1,001-point sweep. A drags the value of one
- * series inductor on the chain canvas upward, one pointer event per ~16 ms.
+ * series inductor on the chain canvas upward, one pointer event (one 2 % tuning step) per ~16 ms.
  *
  * Measured (target in brackets):
  *   A: pointer event → A's Smith chart and sweep plot both redrawn with that value   (p95 < 16 ms)
@@ -17,9 +17,10 @@
  * here the dragged inductor's value. The pointer events' times are `performance.timeOrigin +
  * event.timeStamp`. The value an event sets is computed exactly as the chain canvas does
  * (stepValue/dragSteps from the start value), and the drag only ever raises it, so event i counts
- * as drawn at the first draw (after the event) whose probe is at or above the value of event i.
+ * as drawn at the first draw (after the event) whose probe is at or above the value of event i
+ * (the event's own clientY gives its drag distance).
  *
- * Options: --events N (default 240), --interval MS (default 16), --keep-screens (screenshots to
+ * Options: --events N (default 200), --interval MS (default 16), --keep-screens (screenshots to
  * e2e/screenshots/bench-ui-*.png), --profile (the tuner page's main-thread CPU profile during the
  * drag, summarised by function; most useful on a build made with `vite build --minify false`). Prints a table; exits 0 whatever the numbers (targets are
  * reported, not enforced).
@@ -27,14 +28,14 @@
 import { parseArgs } from 'node:util';
 import type { Page } from 'playwright-core';
 import { CELL_WIDTH, chainLayout } from '../../client/features/workspace/chain/chain-layout';
-import { dragSteps, stepValue } from '../../client/features/workspace/value/tuning-step';
+import { DRAG_PIXELS_PER_STEP, dragSteps, stepValue } from '../../client/features/workspace/value/tuning-step';
 import { launchBrowser, openSession, type BrowserSession } from '../support/browser';
 import { newAccount, type Account } from '../support/auth';
 import { startTestServer } from '../support/server';
 
 const { values: args } = parseArgs({
   options: {
-    events: { type: 'string', default: '240' },
+    events: { type: 'string', default: '200' },
     interval: { type: 'string', default: '16' },
     'keep-screens': { type: 'boolean', default: false },
     profile: { type: 'boolean', default: false },
@@ -46,7 +47,8 @@ const INTERVAL = Math.max(0, Number(args.interval));
 const DRAGGED_ID = 'L4';
 const DRAGGED_INDEX = 8;
 const START_VALUE = 0.3e-9;
-const PIXELS_PER_EVENT = 1;
+/** one tuning step per pointer event, so that every event changes the value */
+const PIXELS_PER_EVENT = DRAG_PIXELS_PER_STEP;
 
 /** The invented 2.4 GHz chip antenna with a deliberately long 10-element chain and a 1,001-point sweep. */
 function benchDesign() {
@@ -81,7 +83,7 @@ interface DrawRecord {
   probe: number | null;
 }
 interface PageLog {
-  input: { t: number }[];
+  input: { t: number; y: number; buttons: number }[];
   chart: DrawRecord[];
   plot: DrawRecord[];
   requested: { at: number; seq: number }[];
@@ -97,7 +99,7 @@ function installHooks(draggedId: string) {
   w.__mlProbe = (d: { elements: { id: string; value?: number }[] }) => d.elements.find((e) => e.id === draggedId)?.value ?? null;
   w.__mlOnDrawn = (which: 'chart' | 'plot', rec: DrawRecord) => log[which].push(rec);
   w.__mlOnStage = (stage: 'requested' | 'analysed', rec: { at: number; seq: number }) => log[stage].push(rec);
-  window.addEventListener('pointermove', (e) => log.input.push({ t: performance.timeOrigin + e.timeStamp }), { capture: true });
+  window.addEventListener('pointermove', (e) => log.input.push({ t: performance.timeOrigin + e.timeStamp, y: e.clientY, buttons: e.buttons }), { capture: true });
 }
 
 async function signUpByApi(session: BrowserSession, account: Account) {
@@ -206,6 +208,22 @@ function printProfile(p: CpuProfile) {
   }
   console.log(`\ntuner main thread, ${total.toFixed(0)} ms sampled; self time by function:`);
   for (const [k, ms] of [...byFn].sort((a, b) => b[1] - a[1]).slice(0, 25)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
+  // inclusive time of the chart's and plot's own work (names survive only in a non-minified build)
+  const parent = new Map<number, number>();
+  for (const n of p.nodes) for (const c of n.children ?? []) parent.set(c, n.id);
+  const watch = ['SmithChartView', 'SweepPlotView', 'buildTraceModel', 'buildGridModel', 'buildPlotModel', 'TraceShapes', 'decorations', 'Workspace', 'ChainCanvas'];
+  const incl = new Map<string, number>();
+  for (const [id, ms] of self) {
+    const seen = new Set<string>();
+    for (let cur: number | undefined = id; cur !== undefined; cur = parent.get(cur)) {
+      const name = byId.get(cur)!.callFrame.functionName;
+      if (watch.includes(name) && !seen.has(name)) {
+        seen.add(name);
+        incl.set(name, (incl.get(name) ?? 0) + ms);
+      }
+    }
+  }
+  if (incl.size) console.log('inclusive time (React render functions count their render only):', [...incl].map(([k, v]) => `${k} ${v.toFixed(0)} ms`).join(', '));
   console.log('by file:');
   for (const [k, ms] of [...byFile].sort((a, b) => b[1] - a[1]).slice(0, 8)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
 }
@@ -214,7 +232,8 @@ async function main() {
   console.log(`bench:ui — ${EVENTS} pointer moves, one every ${INTERVAL} ms`);
   const server = await startTestServer();
   const browser = await launchBrowser();
-  const viewport = { width: 1600, height: 1000 };
+  // tall, so that the upward drag (4 px, one tuning step, per event) stays inside the window
+  const viewport = { width: 1600, height: 1400 };
   try {
     const a = await openSession(browser, server.url, { viewport });
     const b = await openSession(browser, server.url, { viewport });
@@ -244,6 +263,9 @@ async function main() {
     const x0 = Math.round(box.x + offsetX + layout.cellX(DRAGGED_INDEX) + CELL_WIDTH / 2);
     const y0 = Math.round(box.y + 32);
 
+    const room = Math.floor((y0 - 20) / PIXELS_PER_EVENT);
+    if (EVENTS > room) throw new Error(`--events ${EVENTS} would drag off the window; at most ${room} fit`);
+
     const clear = (p: Page) => p.evaluate(() => {
       const log = (window as unknown as { __benchLog: PageLog }).__benchLog;
       for (const k of ['input', 'chart', 'plot', 'requested', 'analysed'] as const) log[k].length = 0;
@@ -272,17 +294,18 @@ async function main() {
 
     const logA = (await a.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
     const logB = (await b.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
-    // the first pointermove is the move to the start point's own press; the drag's moves follow in order
-    const moves = logA.input.slice(-EVENTS);
-    const events = moves.map((m, i) => ({
-      t: m.t,
-      value: stepValue(START_VALUE, dragSteps(-(i + 1) * PIXELS_PER_EVENT), { scale: 'log', size: 'normal' }),
-    }));
+    // the drag's moves (button held); each sets the value the chain canvas computes from its distance
+    const moves = logA.input.filter((m) => m.buttons !== 0);
+    // Only moves that change the value need a redraw (Chromium also sends a few moves at an unchanged
+    // position, e.g. after a layout change under the pointer).
+    const events = moves
+      .map((m) => ({ t: m.t, value: stepValue(START_VALUE, dragSteps(m.y - y0), { scale: 'log', size: 'normal' }) }))
+      .filter((ev, i, all) => i === 0 || ev.value !== all[i - 1].value);
     const finalA = logA.chart[logA.chart.length - 1]?.probe ?? null;
     const finalB = logB.chart[logB.chart.length - 1]?.probe ?? null;
     console.log(`  dragged ${DRAGGED_ID} from ${START_VALUE * 1e9} nH to ${(events[events.length - 1].value * 1e9).toFixed(4)} nH`);
     console.log(`  last value drawn: tuner ${finalA === null ? 'none' : (finalA * 1e9).toFixed(4)} nH, observer ${finalB === null ? 'none' : (finalB * 1e9).toFixed(4)} nH`);
-    console.log(`  draws: tuner chart ${logA.chart.length}, tuner plot ${logA.plot.length}, observer chart ${logB.chart.length}; pointer events seen ${moves.length}`);
+    console.log(`  draws: tuner chart ${logA.chart.length}, tuner plot ${logA.plot.length}, observer chart ${logB.chart.length}; pointer moves seen ${logA.input.length}, while dragging ${moves.length}, changing the value ${events.length}`);
 
     const chartA = latencies(events, logA.chart);
     const plotA = latencies(events, logA.plot);
