@@ -87,6 +87,12 @@ try {
     await server.close();
   }
   console.log(violations.length ? `CSP violations:\n${violations.join('\n')}` : 'no CSP violations');
+  if (violations.length && violations.every((v) => v.includes('blocked=eval')))
+    console.log(
+      "All of them are blocked eval probes: zod 4 tries `new Function('')` once per realm (page and worker) to decide whether to " +
+        'compile its parsers, catches the refusal and parses without compiling. Nothing breaks, but the browser reports it; ' +
+        'calling `z.config({ jitless: true })` first thing in the client entry and in the engine worker stops the probe.',
+    );
   if (violations.length) failed = true;
 } finally {
   rmSync(out, { recursive: true, force: true });
