@@ -67,6 +67,60 @@ describe('room workspace', () => {
     tuner.assertClean();
   });
 
+  it('gives the Smith chart most of the height, with resizable panes worked from the keyboard', async () => {
+    const { page } = tuner;
+    const chart = (await page.getByTestId('chart-pane').boundingBox())!;
+    const plot = (await page.getByTestId('plot-pane').boundingBox())!;
+    const chain = (await page.getByRole('region', { name: 'Chain canvas' }).boundingBox())!;
+    const side = (await page.getByRole('complementary', { name: 'Side panel' }).boundingBox())!;
+    // At 1366×768 the chart is at least 420 px across, the plot and the chain canvas beside it.
+    expect(chart.width).toBeGreaterThanOrEqual(420);
+    expect(chart.height).toBeGreaterThanOrEqual(420);
+    expect(plot.width).toBeGreaterThanOrEqual(300);
+    expect(plot.height).toBeGreaterThanOrEqual(150);
+    expect(chain.y + chain.height).toBeLessThanOrEqual(768);
+    expect(side.width).toBeGreaterThanOrEqual(300);
+    expect(side.x + side.width).toBeLessThanOrEqual(1366);
+    // The divider before the side panel: a separator with its position, moved with the arrow keys.
+    const divider = page.getByRole('separator', { name: 'Resize the side panel' });
+    const before = Number(await divider.getAttribute('aria-valuenow'));
+    await divider.focus();
+    await page.keyboard.press('ArrowLeft');
+    await page.keyboard.press('ArrowLeft');
+    await expect.poll(async () => Number(await divider.getAttribute('aria-valuenow'))).toBe(before + 32);
+    await expect.poll(async () => (await page.getByRole('complementary', { name: 'Side panel' }).boundingBox())!.width).toBeCloseTo(before + 32, 0);
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(async () => Number(await divider.getAttribute('aria-valuenow'))).toBe(before);
+    // The chart's own divider narrows it from the keyboard too.
+    const chartDivider = page.getByRole('separator', { name: 'Resize the Smith chart' });
+    const chartBefore = Number(await chartDivider.getAttribute('aria-valuenow'));
+    await chartDivider.focus();
+    await page.keyboard.press('ArrowLeft');
+    await expect.poll(async () => Number(await chartDivider.getAttribute('aria-valuenow'))).toBe(chartBefore - 16);
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(async () => Number(await chartDivider.getAttribute('aria-valuenow'))).toBe(chartBefore);
+    tuner.assertClean();
+  });
+
+  it('grows the chart on a 1920×1080 screen', async () => {
+    const wide = await openSession(browser, server.url, { viewport: { width: 1920, height: 1080 } });
+    try {
+      await signIn(wide.page, 'tuner@demo.test', DEMO_PASSWORD);
+      await wide.page.getByRole('link', { name: CHIP_ANTENNA_ROOM }).click();
+      await wide.page.locator('[data-testid="workspace"][data-synced="true"]').waitFor();
+      await summaryWorst(wide.page).getByText('outside goal').waitFor();
+      const chart = (await wide.page.getByTestId('chart-pane').boundingBox())!;
+      expect(chart.width).toBeGreaterThanOrEqual(650);
+      const plot = (await wide.page.getByTestId('plot-pane').boundingBox())!;
+      expect(plot.width).toBeGreaterThanOrEqual(500);
+      await wide.screenshot('workspace-00-wide-1920');
+      wide.assertClean();
+    } finally {
+      await wide.close();
+    }
+  });
+
   it('lists match-finder candidates with their figures and previews one on hover', async () => {
     const { page } = tuner;
     await openTab(page, 'Match finder');

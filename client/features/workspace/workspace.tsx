@@ -1,6 +1,7 @@
 /**
- * The room workspace: the screen RF engineers live in during a call. The Smith chart and the
- * sweep plot on top, the chain canvas below them, and a side panel with the selected element, the
+ * The room workspace: the screen RF engineers live in during a call. The Smith chart large on the
+ * left at the full height of the main area, the sweep plot over the chain canvas beside it (both
+ * dividers draggable and keyboard-operable), and a side panel with the selected element, the
  * load, band and port, the figures, the match finder, refine and the yield run, and who is in the
  * room. Everything is derived from the room's shared document, so every collaborator's edit shows
  * at once; an observer sees it all live with no editing control.
@@ -58,13 +59,22 @@ export interface WorkspaceProps {
 
 type TabKey = 'element' | 'load' | 'band' | 'figures' | 'finder' | 'refine' | 'yield' | 'room';
 
-const PALETTE_HEIGHT = 30;
+/** smallest Smith chart, and the least width kept for the plot and chain column beside it */
+const CHART_MIN = 240;
+const SIDE_COLUMN_MIN = 380;
+
+/** a laptop screen gets a narrower side panel, so the chart and plot keep their room */
+function defaultSideWidth(): number {
+  return typeof window !== 'undefined' && window.innerWidth < 1600 ? 340 : 400;
+}
 
 /** Keys typed into a field keep their own undo; the room's undo is for everywhere else. */
 function isTextEntry(target: EventTarget | null): boolean {
   const el = target as HTMLElement | null;
   if (!el || !el.tagName) return false;
-  return el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable;
+  return (
+    el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable
+  );
 }
 
 export default function Workspace({ roomId, role }: WorkspaceProps) {
@@ -84,7 +94,10 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   const editor = useLocalUndo(room.doc, me?.id ?? null);
   const edits = useDesignEdits(room.doc, editor, editable);
   const presenceUser = useMemo<PresenceUser | null>(
-    () => (me ? { id: me.id, name: me.displayName, role: currentRole ?? role, color: presenceColour(me.id) } : null),
+    () =>
+      me
+        ? { id: me.id, name: me.displayName, role: currentRole ?? role, color: presenceColour(me.id) }
+        : null,
     [me, currentRole, role],
   );
   const presence = usePresence(room.provider, presenceUser);
@@ -99,9 +112,10 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   const [view, setView] = useState<ChartView>(DEFAULT_VIEW);
   const [plotMode, setPlotMode] = useState<SweepPlotMode>('return-loss');
   const [following, setFollowing] = useState<string | null>(null);
-  const [sideWidth, setSideWidth] = useState(400);
+  const [sideWidth, setSideWidth] = useState(defaultSideWidth);
+  const [chartSideSet, setChartSide] = useState<number | null>(null);
   const [chainHeightSet, setChainHeight] = useState<number | null>(null);
-  const chainHeight = chainHeightSet ?? CANVAS_HEIGHT + 8 + (editable ? PALETTE_HEIGHT : 0);
+  const chainHeight = chainHeightSet ?? CANVAS_HEIGHT + 12;
   const [notice, setNotice] = useState<string | null>(null);
   const seriesId = useId();
 
@@ -148,7 +162,11 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   useEffect(() => presence.setSelection(selectedId), [selectedId, presence.setSelection]);
   useEffect(() => {
     presence.setView(view);
-    const v: ViewState = { selectedElementId: selectedId, charts: { smith: { zoom: view.zoom, panX: view.cx, panY: view.cy } }, panel: tab };
+    const v: ViewState = {
+      selectedElementId: selectedId,
+      charts: { smith: { zoom: view.zoom, panX: view.cx, panY: view.cy } },
+      panel: tab,
+    };
     events.sendView(v);
   }, [view, selectedId, tab]);
 
@@ -216,57 +234,104 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   // ---- sizes -----------------------------------------------------------------------------------
   const root = useRef<HTMLDivElement>(null);
   const screenHeight = useScreenHeight(root);
-  const chartsBox = useRef<HTMLDivElement>(null);
-  const chartsSize = useElementSize(chartsBox);
+  const mainBox = useRef<HTMLDivElement>(null);
+  const mainSize = useElementSize(mainBox);
+  const plotBox = useRef<HTMLDivElement>(null);
+  const plotSize = useElementSize(plotBox);
   const chainBox = useRef<HTMLDivElement>(null);
   const chainSize = useElementSize(chainBox);
-  const chartSide = Math.max(160, Math.min(chartsSize.height, Math.floor(chartsSize.width * 0.52)));
-  const plotWidth = Math.max(160, chartsSize.width - chartSide - 8);
+  // The chart is square and as tall as the main area (less the padding) unless resized by hand;
+  // the column beside it always keeps room for a readable plot and the chain canvas.
+  const chartHeight = Math.max(CHART_MIN, mainSize.height - 16);
+  const chartMax = Math.max(CHART_MIN, Math.min(chartHeight, mainSize.width - 16 - 8 - SIDE_COLUMN_MIN));
+  const chartSide = Math.max(CHART_MIN, Math.min(chartMax, chartSideSet ?? chartHeight));
 
   const cursors = useMemo<ChartCursor[]>(
     () =>
       presence.peers.flatMap((p) =>
-        p.cursor?.area === 'chart' ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, gamma: p.cursor.gamma }] : [],
+        p.cursor?.area === 'chart'
+          ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, gamma: p.cursor.gamma }]
+          : [],
       ),
     [presence.peers],
   );
   const rows = useMemo(
-    () => presenceRows(events.members, presence.peers, me ? { id: me.id, name: me.displayName, role: currentRole ?? role, selection: selectedId } : null),
+    () =>
+      presenceRows(
+        events.members,
+        presence.peers,
+        me ? { id: me.id, name: me.displayName, role: currentRole ?? role, selection: selectedId } : null,
+      ),
     [events.members, presence.peers, me, currentRole, role, selectedId],
   );
   const others = rows.filter((r) => !r.isMe);
   const followedName = following ? (rows.find((r) => r.userId === following)?.name ?? 'a member') : null;
-  const onChartCursor = useCallback((g: [number, number] | null) => presence.setCursor(g ? { area: 'chart', gamma: g } : null), [presence]);
-  const nameOfElement = useCallback((id: string) => {
-    const e = design?.elements.find((x) => x.id === id);
-    return e ? elementName(e) : id;
-  }, [design]);
+  const onChartCursor = useCallback(
+    (g: [number, number] | null) => presence.setCursor(g ? { area: 'chart', gamma: g } : null),
+    [presence],
+  );
+  const nameOfElement = useCallback(
+    (id: string) => {
+      const e = design?.elements.find((x) => x.id === id);
+      return e ? elementName(e) : id;
+    },
+    [design],
+  );
 
   const tabs: SideTab<TabKey>[] = [
-    { key: 'element', label: 'Element', badge: selectedElement ? elementName(selectedElement) : null, badgeLabel: selectedElement ? `${elementName(selectedElement)} selected` : undefined },
+    {
+      key: 'element',
+      label: 'Element',
+      badge: selectedElement ? elementName(selectedElement) : null,
+      badgeLabel: selectedElement ? `${elementName(selectedElement)} selected` : undefined,
+    },
     { key: 'load', label: 'Load' },
     { key: 'band', label: 'Band & port' },
     { key: 'figures', label: 'Figures' },
     { key: 'finder', label: 'Match finder' },
     { key: 'refine', label: 'Refine' },
     { key: 'yield', label: 'Yield run' },
-    { key: 'room', label: 'Room', badge: others.length ? String(others.length) : null, badgeLabel: `${others.length} other${others.length === 1 ? '' : 's'} here` },
+    {
+      key: 'room',
+      label: 'Room',
+      badge: others.length ? String(others.length) : null,
+      badgeLabel: `${others.length} other${others.length === 1 ? '' : 's'} here`,
+    },
   ];
 
-  const waiting = <p className="text-sm text-ink-faint">{room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}</p>;
+  const waiting = (
+    <p className="text-sm text-ink-faint">
+      {room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}
+    </p>
+  );
   const panels: Record<TabKey, ReactNode> = !design
-    ? { element: waiting, load: waiting, band: waiting, figures: waiting, finder: waiting, refine: waiting, yield: waiting, room: waiting }
+    ? {
+        element: waiting,
+        load: waiting,
+        band: waiting,
+        figures: waiting,
+        finder: waiting,
+        refine: waiting,
+        yield: waiting,
+        room: waiting,
+      }
     : {
         element: (
           <div className="flex flex-col gap-4">
             {selectedElement ? (
-              <ElementInspector design={design} element={selectedElement} editable={editable} series={series} actions={elementActions} />
+              <ElementInspector
+                design={design}
+                element={selectedElement}
+                editable={editable}
+                series={series}
+                actions={elementActions}
+              />
             ) : (
               <p className="text-sm text-ink-soft">
                 {design.elements.length
                   ? 'Select an element on the chain canvas or in the list below.'
                   : editable
-                    ? 'No network yet. Add parts from the palette under the chart, or let the match finder propose one.'
+                    ? 'No network yet. Add parts from the palette over the chain canvas, or let the match finder propose one.'
                     : 'No network yet.'}
               </p>
             )}
@@ -318,7 +383,12 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
               <h3 id="presence-title" className="mb-1.5 text-sm font-bold text-ink">
                 Presence
               </h3>
-              <PresenceList rows={rows} followingId={following} onFollow={setFollowing} elementName={nameOfElement} />
+              <PresenceList
+                rows={rows}
+                followingId={following}
+                onFollow={setFollowing}
+                elementName={nameOfElement}
+              />
             </section>
             <section aria-labelledby="log-title">
               <h3 id="log-title" className="mb-1.5 text-sm font-bold text-ink">
@@ -343,16 +413,31 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 border-b border-rule bg-card px-3 py-1.5">
         <ConnectionChip status={room.status} synced={room.synced} />
         {!editable && !lostAccess && (
-          <span className="rounded-full bg-slate-soft px-2 py-0.5 text-[11px] font-bold text-ink-soft" data-testid="read-only-chip">
+          <span
+            className="rounded-full bg-slate-soft px-2 py-0.5 text-[11px] font-bold text-ink-soft"
+            data-testid="read-only-chip"
+          >
             Watching: read-only
           </span>
         )}
         {editable && editor && (
           <span className="flex items-center gap-1" role="group" aria-label="Undo and redo your own edits">
-            <button type="button" className={smallButton()} disabled={!editor.canUndo} onClick={undo} title="Undo your last edit (Ctrl+Z)">
+            <button
+              type="button"
+              className={smallButton()}
+              disabled={!editor.canUndo}
+              onClick={undo}
+              title="Undo your last edit (Ctrl+Z)"
+            >
               Undo
             </button>
-            <button type="button" className={smallButton()} disabled={!editor.canRedo} onClick={redo} title="Redo (Ctrl+Shift+Z)">
+            <button
+              type="button"
+              className={smallButton()}
+              disabled={!editor.canRedo}
+              onClick={redo}
+              title="Redo (Ctrl+Shift+Z)"
+            >
               Redo
             </button>
           </span>
@@ -380,7 +465,10 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
           </label>
         )}
         {followedName && (
-          <span className="flex items-center gap-1 rounded-full bg-violet-soft px-2 py-0.5 text-[11px] font-bold text-violet-deep" data-testid="following-chip">
+          <span
+            className="flex items-center gap-1 rounded-full bg-violet-soft px-2 py-0.5 text-[11px] font-bold text-violet-deep"
+            data-testid="following-chip"
+          >
             Following {followedName}
             <button type="button" className="underline" onClick={stopFollowing}>
               stop
@@ -407,88 +495,116 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
       )}
 
       <div className="flex min-h-0 flex-1">
-        {/* charts and chain */}
-        <div className="flex min-w-0 flex-1 flex-col p-2">
-          <div ref={chartsBox} className="flex min-h-0 flex-1 gap-2">
-            {design && chartsSize.width > 0 && (
-              <>
-                <SmithChart
-                  width={chartSide}
-                  height={Math.max(160, chartsSize.height)}
-                  design={design}
-                  result={analysis.result}
-                  path={analysis.path}
-                  selectedElementId={selectedId}
-                  onSelectElement={selectByUser}
-                  envelope={envelope}
-                  preview={preview}
-                  cursors={cursors}
-                  onCursorMove={onChartCursor}
-                  view={view}
-                  onViewChange={viewByUser}
-                />
-                <div className="flex min-w-0 flex-1 flex-col">
-                  <div className="mb-1 flex items-center gap-1" role="group" aria-label="Plot">
-                    {(['return-loss', 'vswr'] as const).map((m) => (
-                      <button
-                        key={m}
-                        type="button"
-                        aria-pressed={plotMode === m}
-                        onClick={() => setPlotMode(m)}
-                        className={plotMode === m ? smallButton('primary') : smallButton()}
-                      >
-                        {m === 'return-loss' ? 'Return loss' : 'VSWR'}
-                      </button>
-                    ))}
-                  </div>
+        {/* the chart on the left at full height; the sweep plot over the chain canvas beside it */}
+        <div ref={mainBox} className="flex min-w-0 flex-1 p-2">
+          <div className="shrink-0" style={{ width: chartSide }} data-testid="chart-pane">
+            {design && mainSize.width > 0 && (
+              <SmithChart
+                width={chartSide}
+                height={chartHeight}
+                design={design}
+                result={analysis.result}
+                path={analysis.path}
+                selectedElementId={selectedId}
+                onSelectElement={selectByUser}
+                envelope={envelope}
+                preview={preview}
+                cursors={cursors}
+                onCursorMove={onChartCursor}
+                view={view}
+                onViewChange={viewByUser}
+              />
+            )}
+          </div>
+          <SplitHandle
+            orientation="vertical"
+            label="Resize the Smith chart"
+            value={chartSide}
+            min={CHART_MIN}
+            max={chartMax}
+            onChange={setChartSide}
+          />
+          <div className="flex min-w-0 flex-1 flex-col">
+            <div className="mb-1 flex items-center gap-1" role="group" aria-label="Plot">
+              {(['return-loss', 'vswr'] as const).map((m) => (
+                <button
+                  key={m}
+                  type="button"
+                  aria-pressed={plotMode === m}
+                  onClick={() => setPlotMode(m)}
+                  className={plotMode === m ? smallButton('primary') : smallButton()}
+                >
+                  {m === 'return-loss' ? 'Return loss' : 'VSWR'}
+                </button>
+              ))}
+            </div>
+            <div ref={plotBox} className="relative min-h-0 flex-1 overflow-hidden" data-testid="plot-pane">
+              {design && plotSize.width > 0 && (
+                <div className="absolute inset-0">
                   <SweepPlot
-                    width={plotWidth}
-                    height={Math.max(140, chartsSize.height - 30)}
+                    width={Math.max(160, plotSize.width)}
+                    height={Math.max(120, plotSize.height)}
                     design={design}
                     result={analysis.result}
                     mode={plotMode}
                     envelope={envelope}
                   />
                 </div>
-              </>
-            )}
-          </div>
-          <SplitHandle
-            orientation="horizontal"
-            label="Resize the chain canvas"
-            value={chainHeight}
-            min={CANVAS_HEIGHT + 8}
-            max={Math.max(CANVAS_HEIGHT + 8, screenHeight - 300)}
-            onChange={setChainHeight}
-            inverted
-          />
-          <section aria-label="Chain canvas" className="flex shrink-0 flex-col gap-1" style={{ height: chainHeight }}>
-            {editable && <ElementPalette onAdd={addElement} />}
-            <div ref={chainBox} className="min-h-0 flex-1 rounded-md border border-rule bg-card">
-              {design && (
-                <ChainCanvas
-                  design={design}
-                  width={Math.max(0, chainSize.width - 2)}
-                  selectedId={selectedId}
-                  onSelect={selectByUser}
-                  editable={editable}
-                  series={series}
-                  onTune={edits.tuneField}
-                  onMove={edits.move}
-                  onRemove={removeEl}
-                  onDuplicate={duplicateEl}
-                  peers={presence.peers}
-                  onCursor={presence.setCursor}
-                />
               )}
             </div>
-          </section>
+            <SplitHandle
+              orientation="horizontal"
+              label="Resize the chain canvas"
+              value={chainHeight}
+              min={CANVAS_HEIGHT + 8}
+              max={Math.max(CANVAS_HEIGHT + 8, mainSize.height - 200)}
+              onChange={setChainHeight}
+              inverted
+            />
+            <section aria-label="Chain canvas" className="flex shrink-0 flex-col gap-1">
+              {editable && <ElementPalette onAdd={addElement} />}
+              <div
+                ref={chainBox}
+                className="rounded-md border border-rule bg-card"
+                style={{ height: chainHeight }}
+              >
+                {design && (
+                  <ChainCanvas
+                    design={design}
+                    width={Math.max(0, chainSize.width - 2)}
+                    selectedId={selectedId}
+                    onSelect={selectByUser}
+                    editable={editable}
+                    series={series}
+                    onTune={edits.tuneField}
+                    onMove={edits.move}
+                    onRemove={removeEl}
+                    onDuplicate={duplicateEl}
+                    peers={presence.peers}
+                    onCursor={presence.setCursor}
+                  />
+                )}
+              </div>
+            </section>
+          </div>
         </div>
 
-        <SplitHandle orientation="vertical" label="Resize the side panel" value={sideWidth} min={320} max={640} onChange={setSideWidth} inverted />
+        <SplitHandle
+          orientation="vertical"
+          label="Resize the side panel"
+          value={sideWidth}
+          min={300}
+          max={640}
+          onChange={setSideWidth}
+          inverted
+        />
 
         {/* side panel */}
-        <aside aria-label="Side panel" className="flex shrink-0 flex-col border-l border-rule bg-paper/40" style={{ width: sideWidth }}>
+        <aside
+          aria-label="Side panel"
+          className="flex shrink-0 flex-col border-l border-rule bg-paper/40"
+          style={{ width: sideWidth }}
+        >
           <SideTabs<TabKey> tabs={tabs} active={tab} onChange={setTab} label="Side panel" panels={panels} />
           {lostAccess && (
             <p className="border-t border-rule p-2 text-xs">
@@ -505,10 +621,27 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
 
 function ConnectionChip({ status, synced }: { status: string; synced: boolean }) {
   const text =
-    status === 'denied' ? 'No access' : status === 'connected' ? (synced ? 'Live' : 'Syncing…') : status === 'connecting' ? 'Connecting…' : 'Reconnecting…';
-  const tone = status === 'connected' && synced ? 'bg-teal-soft text-teal-deep' : status === 'denied' ? 'bg-coral-soft text-coral-deep' : 'bg-amber-soft text-amber-deep';
+    status === 'denied'
+      ? 'No access'
+      : status === 'connected'
+        ? synced
+          ? 'Live'
+          : 'Syncing…'
+        : status === 'connecting'
+          ? 'Connecting…'
+          : 'Reconnecting…';
+  const tone =
+    status === 'connected' && synced
+      ? 'bg-teal-soft text-teal-deep'
+      : status === 'denied'
+        ? 'bg-coral-soft text-coral-deep'
+        : 'bg-amber-soft text-amber-deep';
   return (
-    <span role="status" className={`flex items-center gap-1.5 rounded-full px-2 py-0.5 text-[11px] font-bold ${tone}`} data-testid="connection-status">
+    <span
+      role="status"
+      className={`flex items-center gap-1.5 rounded-full px-2 py-0.5 text-[11px] font-bold ${tone}`}
+      data-testid="connection-status"
+    >
       <span className="size-1.5 rounded-full bg-current" aria-hidden="true" />
       {text}
     </span>
