@@ -6,6 +6,7 @@
  *   // after a role change or removal:  hub.roleChanged(roomId, userId, role | null)
  *   // after a room is deleted:         hub.roomDeleted(roomId)
  *   // after a snapshot is created:     hub.emit(roomId, ROOM_EVENTS.snapshotCreated, payload)
+ *   // a server-side document edit:     await hub.applyUpdate(roomId, update, userId)
  *   // on shutdown:                     await hub.close()
  *
  * The socket's rules (authorisation, roles, limits, close codes, storage) are in server/collab/README.md.
@@ -20,8 +21,9 @@ import type { Role, TokenService } from '../auth/tokens';
 import { getRole } from '../rooms/membership';
 import { authoriseRoom, identifyUser } from './auth';
 import { CollabConnection, closeReason } from './connection';
-import { DEFAULT_LIMITS, type CollabLimits } from './limits';
-import type { Room } from './room';
+import { DEFAULT_LIMITS, formatBytes, type CollabLimits } from './limits';
+import { RoomWriteError, type Room } from './room';
+import { HttpError } from '../errors';
 import { RoomEvents } from './room-events';
 import { RoomLogWriter } from './room-log';
 import { RoomRegistry } from './rooms';
@@ -38,6 +40,13 @@ export interface CollabHub {
   roomDeleted(roomId: string): void;
   /** Send a room event (e.g. `ROOM_EVENTS.snapshotCreated`) to every events socket in the room. */
   emit(roomId: string, event: string, payload: unknown): void;
+  /**
+   * A server-side edit of the room document (a Yjs update made on a copy of it): stored, applied to the
+   * live document and sent to every open socket, in order with the members' edits, and attributed to
+   * `userId` in the room log. Resolves once stored. Throws `HttpError` 413 past the size limits, 503 if
+   * it could not be stored or the room is going away.
+   */
+  applyUpdate(roomId: string, update: Uint8Array, userId: string | null): Promise<void>;
   /** Close every socket, store every loaded document (compacted), detach from the server. */
   close(): Promise<void>;
 }
@@ -223,6 +232,28 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
 
     emit(roomId, event, payload) {
       events.emit(roomId, event, payload);
+    },
+
+    async applyUpdate(roomId, update, userId) {
+      if (update.byteLength > limits.maxMessageBytes)
+        throw new HttpError(
+          413,
+          'too-large',
+          `That change is ${formatBytes(update.byteLength)}; one change to a room may be at most ${formatBytes(limits.maxMessageBytes)}.`,
+        );
+      if (closing) throw new HttpError(503, 'room-busy', 'The server is restarting. Try again in a moment.');
+      const room = await registry.acquire(roomId);
+      try {
+        await room.applyServerUpdate(update, userId);
+      } catch (e) {
+        if (e instanceof RoomWriteError)
+          throw e.kind === 'too-large'
+            ? new HttpError(413, 'too-large', `That change would make the room document too large: ${e.message}.`)
+            : new HttpError(503, 'room-busy', `The room did not take the change (${e.message}). Try again in a moment.`);
+        throw e;
+      } finally {
+        room.release();
+      }
     },
 
     async close() {

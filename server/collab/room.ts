@@ -39,10 +39,28 @@ export interface RoomDeps {
 }
 
 export interface PendingWrite {
-  conn: CollabConnection;
+  /** The socket it came from; null for a server-side edit (`Room.applyServerUpdate`). */
+  conn: CollabConnection | null;
+  userId: string | null;
   update: Uint8Array;
   decoded: ReturnType<typeof Y.decodeUpdate>;
+  /** For a server-side edit: settled once it is stored and applied (or refused). */
+  done?: { resolve: () => void; reject: (e: RoomWriteError) => void };
 }
+
+/** Why a server-side edit was not taken. */
+export class RoomWriteError extends Error {
+  constructor(
+    readonly kind: 'too-large' | 'not-stored' | 'unloading',
+    message: string,
+  ) {
+    super(message);
+    this.name = 'RoomWriteError';
+  }
+}
+
+/** The transaction origin of server-side edits on the live document (broadcast to every socket). */
+export const SERVER_ORIGIN = Symbol('matchloom-server-update');
 
 type RoomState = 'open' | 'closing' | 'closed';
 
@@ -168,6 +186,7 @@ export class Room {
     if (this.unloadTimer) clearTimeout(this.unloadTimer);
     for (const conn of [...this.conns]) conn.close(opts.closeCode ?? COLLAB_CLOSE.goingAway, opts.closeReason ?? 'the server is restarting');
     if (!opts.compact) {
+      for (const w of [...this.pending, ...this.stalled]) w.done?.reject(new RoomWriteError('unloading', 'the room was deleted'));
       this.pending.length = 0;
       this.stalled = [];
     }
@@ -213,7 +232,7 @@ export class Room {
             logger.debug({ roomId: this.id, userId: conn.userId, role: conn.role, kind: msg.kind }, 'dropped a document update from a member who may not edit');
             return;
           }
-          this.pending.push({ conn, update: msg.update, decoded });
+          this.pending.push({ conn, userId: conn.userId, update: msg.update, decoded });
           this.kick();
           return;
         }
@@ -337,21 +356,23 @@ export class Room {
     const { logger, limits } = this.deps;
     const accepted: PendingWrite[] = [];
     for (const w of batch) {
-      if (!w.conn.mayWrite()) {
+      if (w.conn && !w.conn.mayWrite()) {
         if (!w.conn.closed) {
           logger.debug({ roomId: this.id, userId: w.conn.userId }, 'dropped a queued update: the member may no longer edit');
           if (!updateIsRedundant(this.doc, w.decoded)) w.conn.diverged = true;
         }
         continue;
       }
-      if (updateIsRedundant(this.doc, w.decoded)) continue;
+      if (updateIsRedundant(this.doc, w.decoded)) {
+        w.done?.resolve();
+        continue;
+      }
       if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
         this.approxBytes = Y.encodeStateAsUpdate(this.doc).byteLength;
         if (this.approxBytes + w.update.byteLength > limits.maxDocumentBytes) {
-          w.conn.close(
-            COLLAB_CLOSE.tooLarge,
-            `the room document would pass its ${formatBytes(limits.maxDocumentBytes)} limit (now ${formatBytes(this.approxBytes)})`,
-          );
+          const reason = `the room document would pass its ${formatBytes(limits.maxDocumentBytes)} limit (now ${formatBytes(this.approxBytes)})`;
+          w.conn?.close(COLLAB_CLOSE.tooLarge, reason);
+          w.done?.reject(new RoomWriteError('too-large', reason));
           continue;
         }
       }
@@ -362,12 +383,15 @@ export class Room {
   }
 
   rows(batch: PendingWrite[]) {
-    return batch.map((w) => ({ update: w.update, userId: w.conn.userId }));
+    return batch.map((w) => ({ update: w.update, userId: w.userId }));
   }
 
   private storeFailed(batch: PendingWrite[], e: unknown): void {
     this.deps.logger.error({ roomId: this.id, err: e }, 'could not store room updates; their senders will reconnect and resend');
-    for (const w of batch) w.conn.close(COLLAB_CLOSE.serverError, 'the update could not be stored; reconnecting');
+    for (const w of batch) {
+      w.conn?.close(COLLAB_CLOSE.serverError, 'the update could not be stored; reconnecting');
+      w.done?.reject(new RoomWriteError('not-stored', 'the change could not be stored'));
+    }
   }
 
   /** Apply stored updates in order (each broadcast by the document's update handler) and describe them. */
@@ -375,14 +399,16 @@ export class Room {
     for (let i = 0; i < batch.length; i++) {
       const w = batch[i];
       try {
-        Y.applyUpdate(this.doc, w.update, w.conn);
+        Y.applyUpdate(this.doc, w.update, w.conn ?? SERVER_ORIGIN);
       } catch (e) {
-        this.deps.logger.warn({ roomId: this.id, userId: w.conn.userId, err: e }, 'a stored update could not be applied');
-        w.conn.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
+        this.deps.logger.warn({ roomId: this.id, userId: w.userId, err: e }, 'a stored update could not be applied');
+        w.conn?.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
       }
       this.lastUpdateId = ids[i];
       this.sinceCompaction++;
-      this.describe(w.conn.userId);
+      if (w.userId) this.describe(w.userId);
+      else this.lastSnapshot = designSnapshot(this.doc);
+      w.done?.resolve();
     }
   }
 
@@ -446,6 +472,21 @@ export class Room {
       this.deps.logger.warn({ roomId: this.id, err: e }, 'room compaction failed; will retry');
       return false;
     }
+  }
+
+  /**
+   * A server-side edit (restoring a snapshot, applying an upload): queued like a socket's update,
+   * stored, applied to the live document and broadcast to every socket, attributed to `userId` in the
+   * room log. Resolves once stored and applied; rejects with `RoomWriteError`. Throws `ProtocolError`
+   * for bytes that are not a Yjs update.
+   */
+  applyServerUpdate(update: Uint8Array, userId: string | null): Promise<void> {
+    const decoded = decodeDocumentUpdate(update);
+    if (this.state !== 'open') return Promise.reject(new RoomWriteError('unloading', 'the room is unloading'));
+    return new Promise<void>((resolve, reject) => {
+      this.pending.push({ conn: null, userId, update, decoded, done: { resolve, reject } });
+      this.kick();
+    });
   }
 
   /**

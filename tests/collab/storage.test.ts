@@ -105,6 +105,48 @@ describe('a busy database', () => {
   });
 });
 
+describe('server-side edits (hub.applyUpdate)', () => {
+  it('are stored, reach every open socket and are attributed in the room log', async () => {
+    const roomId = await w.room(owner, designWith([{ id: 'c1', kind: 'shunt-c', value: 1e-12 }]), [[tuner, 'tuner']]);
+    const a = w.api.peer(tuner, roomId);
+    await a.synced;
+    // The edit is made on a copy of the stored document, as the restore and upload routes do.
+    const copy = await loadRoomDocument(w.knex, roomId);
+    let update: Uint8Array | null = null;
+    copy.doc.on('update', (u: Uint8Array) => (update = u));
+    setElementField(copy.doc, 'c1', 'value', 6.8e-12);
+    copy.doc.destroy();
+    await w.hub.applyUpdate(roomId, update!, owner.id);
+    // Resolved once stored: the store has it now, and the open socket gets it.
+    expect(((await loadRoomDesign(w.knex, roomId)).elements[0] as { value?: number }).value).toBe(6.8e-12);
+    await until('the open socket to get it', () => readElement(a.doc, 'c1')?.value === 6.8e-12);
+    await until('the room log entry', async () =>
+      (await w.knex('room_log').where({ room_id: roomId })).some((r) => r.message === 'Owner changed C1 from 1 pF to 6.8 pF'),
+    );
+    // Applying it again changes nothing and stores nothing.
+    const rows = await rowCount(roomId);
+    await w.hub.applyUpdate(roomId, update!, owner.id);
+    expect(await rowCount(roomId)).toBe(rows);
+    a.destroy();
+  });
+
+  it('refuses an update over the message limit with a 413', async () => {
+    const roomId = await w.room(owner, designWith());
+    await expect(w.hub.applyUpdate(roomId, new Uint8Array(2 * 1024 * 1024), owner.id)).rejects.toMatchObject({ status: 413, code: 'too-large' });
+  });
+
+  it('works on a room nobody has open (it is loaded, edited and stored)', async () => {
+    const roomId = await w.room(owner, designWith([{ id: 'l1', kind: 'series-l', value: 1e-9 }]));
+    const copy = await loadRoomDocument(w.knex, roomId);
+    let update: Uint8Array | null = null;
+    copy.doc.on('update', (u: Uint8Array) => (update = u));
+    insertElement(copy.doc, { id: 'c9', kind: 'shunt-c', value: 3.3e-12 });
+    copy.doc.destroy();
+    await w.hub.applyUpdate(roomId, update!, owner.id);
+    expect((await loadRoomDesign(w.knex, roomId)).elements.map((e) => e.id)).toEqual(['l1', 'c9']);
+  });
+});
+
 describe('a failing write', () => {
   it("closes only its own room's sockets (1011); other rooms' updates are stored", async () => {
     const gone = await w.room(owner, designWith([{ id: 'c1', kind: 'shunt-c', value: 1e-12 }]));
