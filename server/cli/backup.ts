@@ -1,6 +1,10 @@
 /**
  * `npm run backup [-- <file>]`: an online copy of DATABASE_FILE (SQLite's backup API, safe while the
  * server runs) to <file>, or to db/backups/matchloom-<UTC time>.sqlite3 beside the database.
+ *
+ * Restore: stop the server, delete `<DATABASE_FILE>-wal` and `<DATABASE_FILE>-shm` if present, copy the
+ * backup over DATABASE_FILE, start the server (tests/faults/backup.test.ts does exactly this).
+ * With DATABASE_URL (PostgreSQL) use pg_dump instead; this command copies the SQLite file only.
  */
 import { existsSync, mkdirSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
