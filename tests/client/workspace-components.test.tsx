@@ -201,16 +201,18 @@ describe('per-user undo through the screen’s edits', () => {
     act(() => {
       id = edits.result.current.add('series-l');
     });
-    expect(id).toBe('L1');
+    // the id carries a random suffix (two tuners adding at once never collide); the label is L1
+    expect(id).toMatch(/^L1-[a-z2-9]{4}$/);
     let copy: string | null = null;
     act(() => {
       copy = edits.result.current.duplicate('c-series');
     });
-    // C1 and C2 are labels already in use in the whip room, so the copy is C3.
-    expect(copy).toBe('C3');
-    expect(readDesign(doc).elements.map((e) => e.id)).toEqual(['c-series', 'C3', 'c-shunt', 'L1']);
+    // C1 and C2 are labels already in use in the whip room, so the copy is labelled C3.
+    expect(copy).toMatch(/^C3-[a-z2-9]{4}$/);
+    expect(readDesign(doc).elements.map((e) => e.id)).toEqual(['c-series', copy, 'c-shunt', id]);
+    expect(readDesign(doc).elements.map((e) => e.label ?? null)).toEqual(['C1', 'C3', 'C2', 'L1']);
     act(() => undo.result.current!.undo());
-    expect(readDesign(doc).elements.map((e) => e.id)).toEqual(['c-series', 'c-shunt', 'L1']);
+    expect(readDesign(doc).elements.map((e) => e.id)).toEqual(['c-series', 'c-shunt', id]);
   });
 });
 

@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { ELEMENT_KINDS, elementSchema, type Design } from '../../shared/rf/design';
+import * as Y from 'yjs';
+import { createDesignDoc, insertElement, orderedElementIds } from '../../shared/collab/schema';
+import { chipAntennaDesign } from '../../shared/demo/designs';
+import { ELEMENT_KINDS, elementSchema, parseDesign, type Design } from '../../shared/rf/design';
 import { parseTouchstone } from '../../shared/rf/touchstone';
 import { defaultElement, roundToFigures } from '../../client/features/workspace/chain/element-defaults';
-import { allocateElementId } from '../../client/features/workspace/chain/element-ids';
+import { allocateElementName, nextElementLabel } from '../../client/features/workspace/chain/element-ids';
 import { PALETTE_KINDS } from '../../client/features/workspace/chain/element-catalog';
 import { chainLayout, dropIndex } from '../../client/features/workspace/chain/chain-layout';
 import { elementDescription, elementValueLabel } from '../../client/features/workspace/chain/element-summary';
@@ -52,20 +55,69 @@ describe('defaultElement', () => {
   });
 });
 
-describe('allocateElementId', () => {
+describe('nextElementLabel', () => {
   it('starts at 1 for each prefix', () => {
-    expect(allocateElementId('series-l', [])).toBe('L1');
-    expect(allocateElementId('shunt-c', ['L1'])).toBe('C1');
-    expect(allocateElementId('line', [])).toBe('TL1');
-    expect(allocateElementId('short-stub', [])).toBe('ST1');
-    expect(allocateElementId('transformer', [])).toBe('T1');
+    expect(nextElementLabel('series-l', [])).toBe('L1');
+    expect(nextElementLabel('shunt-c', ['L1'])).toBe('C1');
+    expect(nextElementLabel('line', [])).toBe('TL1');
+    expect(nextElementLabel('short-stub', [])).toBe('ST1');
+    expect(nextElementLabel('transformer', [])).toBe('T1');
   });
 
-  it('goes past the highest number in use and never repeats one', () => {
-    expect(allocateElementId('series-l', ['L1', 'L2'])).toBe('L3');
-    expect(allocateElementId('shunt-l', ['L1', 'L5'])).toBe('L6');
-    expect(allocateElementId('series-c', ['C1', 'CX', 'C10a'])).toBe('C2');
-    expect(allocateElementId('line', ['TL1', 'L1'])).toBe('TL2');
+  it('goes past the highest number in use, counting suffixed ids, and never repeats one', () => {
+    expect(nextElementLabel('series-l', ['L1', 'L2'])).toBe('L3');
+    expect(nextElementLabel('shunt-l', ['L1', 'L5'])).toBe('L6');
+    expect(nextElementLabel('series-c', ['C1', 'CX', 'C10a'])).toBe('C2');
+    expect(nextElementLabel('line', ['TL1', 'L1'])).toBe('TL2');
+    expect(nextElementLabel('series-l', ['L1-k3f9', 'L1'])).toBe('L2');
+    expect(nextElementLabel('series-l', ['L4-ab2c'])).toBe('L5');
+  });
+});
+
+describe('allocateElementName', () => {
+  it('gives the label and an id made of the label and a short suffix', () => {
+    const { id, label } = allocateElementName('series-l', []);
+    expect(label).toBe('L1');
+    expect(id).toMatch(/^L1-[a-z2-9]{4}$/);
+  });
+
+  it('two tuners adding the same kind at once get the same label but different ids, and both inserts survive the merge', () => {
+    const design = parseDesign(chipAntennaDesign());
+    const a = createDesignDoc({ ...design, elements: [] });
+    const b = new Y.Doc();
+    Y.applyUpdate(b, Y.encodeStateAsUpdate(a));
+    // each side allocates from the same state, as two tuners acting at the same instant do
+    const na = allocateElementName('series-l', []);
+    const nb = allocateElementName('series-l', []);
+    expect(na.label).toBe(nb.label);
+    expect(na.id).not.toBe(nb.id);
+    insertElement(a, { ...defaultElement('series-l', na.id, design), label: na.label });
+    insertElement(b, { ...defaultElement('series-l', nb.id, design), label: nb.label });
+    Y.applyUpdate(a, Y.encodeStateAsUpdate(b));
+    Y.applyUpdate(b, Y.encodeStateAsUpdate(a));
+    expect(orderedElementIds(a).sort()).toEqual([na.id, nb.id].sort());
+    expect(orderedElementIds(b)).toEqual(orderedElementIds(a));
+  });
+
+  it('with ids alone the same id from two sides would leave one element: the risk the suffix removes', () => {
+    const design = parseDesign(chipAntennaDesign());
+    const a = createDesignDoc({ ...design, elements: [] });
+    const b = new Y.Doc();
+    Y.applyUpdate(b, Y.encodeStateAsUpdate(a));
+    insertElement(a, defaultElement('series-l', 'L1', design));
+    insertElement(b, defaultElement('series-l', 'L1', design));
+    Y.applyUpdate(a, Y.encodeStateAsUpdate(b));
+    expect(orderedElementIds(a)).toEqual(['L1']);
+    // and locally an existing id is refused outright
+    expect(() => insertElement(a, defaultElement('series-l', 'L1', design))).toThrow(/already exists/);
+  });
+
+  it('never reuses a number whose id carries a suffix', () => {
+    const seq = [0, 0, 0, 0, 0.5, 0.5, 0.5, 0.5];
+    let i = 0;
+    const random = () => seq[i++ % seq.length]!;
+    const { id } = allocateElementName('series-l', ['L1-aaaa'], random);
+    expect(id).toBe('L2-aaaa');
   });
 });
 

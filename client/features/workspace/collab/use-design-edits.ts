@@ -18,7 +18,7 @@ import {
 } from '../../../../shared/collab/schema';
 import { safeParseDesign, type Design, type Element, type ElementKind } from '../../../../shared/rf/design';
 import { defaultElement } from '../chain/element-defaults';
-import { allocateElementId } from '../chain/element-ids';
+import { allocateElementName } from '../chain/element-ids';
 import type { DesignPatch } from '../forms/design-patch';
 import type { FieldChange } from '../tools/tuned-changes';
 import type { LocalEditor } from './use-local-undo';
@@ -65,8 +65,8 @@ export function useDesignEdits(doc: Y.Doc | null, editor: LocalEditor | null, ed
         const [d, ed] = ok;
         const current = safeParseDesign(readDesignInput(d));
         if (!current.ok) return null;
-        const id = allocateElementId(kind, takenNames(current.design.elements));
-        ed.edit((o) => insertElement(d, defaultElement(kind, id, current.design), index, o));
+        const { id, label } = allocateElementName(kind, takenNames(current.design.elements));
+        ed.edit((o) => insertElement(d, { ...defaultElement(kind, id, current.design), label }, index, o));
         return id;
       },
       remove(id) {
@@ -81,8 +81,8 @@ export function useDesignEdits(doc: Y.Doc | null, editor: LocalEditor | null, ed
         if (!fields) return null;
         const ids = orderedElementIds(d);
         const taken = ids.flatMap((i) => [i, String(readElement(d, i)?.label ?? '')]);
-        const copyId = allocateElementId(fields.kind as ElementKind, taken);
-        const copy = { ...fields, id: copyId, label: undefined } as Element;
+        const { id: copyId, label } = allocateElementName(fields.kind as ElementKind, taken);
+        const copy = { ...fields, id: copyId, label } as Element;
         ed.edit((o) => insertElement(d, copy, ids.indexOf(id) + 1, o));
         return copyId;
       },
