@@ -1,10 +1,14 @@
 /**
- * The database: Knex over better-sqlite3. Every pooled connection gets WAL mode, foreign keys and a busy
- * timeout. Migrations come from the static list in db/migrations/index.ts.
+ * The database: Knex over better-sqlite3 (DATABASE_FILE), or over PostgreSQL (`pg`) when DATABASE_URL is
+ * set. Every pooled SQLite connection gets WAL mode, foreign keys and a busy timeout, so a write that meets
+ * another connection's lock waits (up to BUSY_TIMEOUT_MS) instead of failing. On PostgreSQL, bigint
+ * columns (the millisecond times) come back as numbers, as they do from SQLite. Migrations come from the
+ * static list in db/migrations/index.ts.
  */
 import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import knexFactory, { type Knex } from 'knex';
+import { createRequire } from 'node:module';
 import { migrationSource } from '../db/migrations/index';
 
 export const BUSY_TIMEOUT_MS = 5000;
@@ -13,8 +17,46 @@ interface SqliteConnection {
   pragma(source: string): unknown;
 }
 
-/** Knex settings for a SQLite file (shared by the server, the CLIs and knexfile.ts). */
-export function databaseSettings(databaseFile: string): Knex.Config {
+/** A `postgres://` or `postgresql://` address. */
+export function isPostgresUrl(value: string | undefined): value is string {
+  return typeof value === 'string' && /^postgres(ql)?:\/\//i.test(value.trim());
+}
+
+/** int8 (OID 20) as a JavaScript number: the times stored are milliseconds, far below 2^53. */
+const PG_INT8_OID = 20;
+let pgTypesSet = false;
+function usePgNumbers(): void {
+  if (pgTypesSet) return;
+  // Loaded only for PostgreSQL (and untyped: the project carries no @types/pg).
+  const pg = createRequire(import.meta.url)('pg') as {
+    types: { setTypeParser(oid: number, parse: (value: string) => unknown): void };
+  };
+  pg.types.setTypeParser(PG_INT8_OID, (v: string) => {
+    const n = Number(v);
+    if (!Number.isSafeInteger(n)) throw new RangeError(`bigint ${v} is past 2^53`);
+    return n;
+  });
+  pgTypesSet = true;
+}
+
+/** Knex settings for PostgreSQL at `url`. */
+export function postgresSettings(url: string): Knex.Config {
+  usePgNumbers();
+  return {
+    client: 'pg',
+    connection: url.trim(),
+    pool: { min: 0, max: 10 },
+    migrations: { migrationSource },
+  };
+}
+
+/**
+ * Knex settings for the database: PostgreSQL when `databaseUrl` (or `databaseFile` itself) is a
+ * postgres:// address, otherwise the SQLite file (shared by the server, the CLIs and knexfile.ts).
+ */
+export function databaseSettings(databaseFile: string, databaseUrl?: string): Knex.Config {
+  if (isPostgresUrl(databaseUrl)) return postgresSettings(databaseUrl);
+  if (isPostgresUrl(databaseFile)) return postgresSettings(databaseFile);
   const filename = databaseFile === ':memory:' ? ':memory:' : resolve(databaseFile);
   return {
     client: 'better-sqlite3',
@@ -37,10 +79,17 @@ export function databaseSettings(databaseFile: string): Knex.Config {
   };
 }
 
-/** Open the database file, creating its folder first. */
-export function createKnex(databaseFile: string): Knex {
-  if (databaseFile !== ':memory:') mkdirSync(dirname(resolve(databaseFile)), { recursive: true });
-  return knexFactory(databaseSettings(databaseFile));
+/** Open the database: PostgreSQL for a postgres:// address, else the SQLite file (its folder created first). */
+export function createKnex(databaseFile: string, databaseUrl?: string): Knex {
+  const settings = databaseSettings(databaseFile, databaseUrl);
+  if (settings.client === 'better-sqlite3' && databaseFile !== ':memory:')
+    mkdirSync(dirname(resolve(databaseFile)), { recursive: true });
+  return knexFactory(settings);
+}
+
+/** True when `knex` talks to PostgreSQL. */
+export function isPostgres(knex: Knex): boolean {
+  return (knex.client as { config?: { client?: unknown } }).config?.client === 'pg';
 }
 
 /** Apply every pending migration; returns the names applied now. */
