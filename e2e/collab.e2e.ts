@@ -191,6 +191,38 @@ describe('collaboration in the workspace', () => {
     for (const s of [tunerA, tunerB, observer]) s.assertClean();
   });
 
+  it('a tuner who goes offline keeps editing, comes back with a fresh token, and the edits merge', async () => {
+    const { page } = tunerA;
+    await page.getByRole('tab', { name: /^Element/ }).click();
+    await select(page, 'C1');
+    const tokenPosts: number[] = [];
+    page.on('request', (r) => {
+      if (r.method() === 'POST' && r.url().includes('/collab-token')) tokenPosts.push(Date.now());
+    });
+    const problemsBefore = tunerA.problems.length;
+    await page.context().setOffline(true);
+    await page.getByTestId('connection-status').getByText('Reconnecting…').waitFor();
+    // An edit made while offline stays on this screen, and goes nowhere yet.
+    await typeValue(page, '33p');
+    await expect.poll(() => lineOf(page, 'C1')).toContain('33 pF');
+    await page.waitForTimeout(4000);
+    expect(await lineOf(observer.page, 'C1')).not.toContain('33 pF');
+    const wentOnline = Date.now();
+    await page.context().setOffline(false);
+    await page.getByTestId('connection-status').getByText('Live').waitFor({ timeout: 15_000 });
+    // The reconnection asked for a new token (they live 60 s), and the offline edit reached the others.
+    expect(tokenPosts.filter((t) => t >= wentOnline).length).toBeGreaterThanOrEqual(1);
+    await expect.poll(() => lineOf(observer.page, 'C1'), { timeout: 10_000 }).toContain('33 pF');
+    await tunerB.page.getByRole('tab', { name: /^Element/ }).click();
+    await expect.poll(() => lineOf(tunerB.page, 'C1'), { timeout: 10_000 }).toContain('33 pF');
+    // While offline the browser reports the failed token fetches and socket attempts; nothing else may go wrong.
+    const offlineNoise = /ERR_INTERNET_DISCONNECTED|WebSocket|Failed to fetch|NetworkError|collab-token/i;
+    const during = tunerA.problems.splice(problemsBefore);
+    expect(during.filter((p) => !offlineNoise.test(p))).toEqual([]);
+    tunerA.assertClean();
+    observer.assertClean();
+  });
+
   it('a role change reaches an open screen at once: editing controls go, and removal ends access', async () => {
     const { page } = tunerB;
     await page.getByRole('tab', { name: /^Element/ }).click();

@@ -109,7 +109,23 @@ export function useRoomDoc(roomId: string, options: RoomDocOptions = {}): RoomDo
       }, 0);
     };
 
+    // The browser knows before the socket does: going offline closes it now (the edits made while
+    // offline stay in the document and merge on reconnect); coming back reconnects at once, with a
+    // fresh token, instead of waiting out the back-off.
+    const onOffline = () => {
+      if (!stopped) provider.ws?.close();
+    };
+    const onOnline = () => {
+      if (stopped || provider.wsconnected) return;
+      attempts = 0;
+      clearTimeout(timer);
+      provider.disconnect();
+      void connect();
+    };
+
     provider.on('status', onStatus);
+    window.addEventListener('offline', onOffline);
+    window.addEventListener('online', onOnline);
     provider.on('sync', onSync);
     provider.on('connection-close', onClose);
     setState({ doc, provider, status: 'connecting', synced: false, everSynced: false });
@@ -119,6 +135,8 @@ export function useRoomDoc(roomId: string, options: RoomDocOptions = {}): RoomDo
       stopped = true;
       abort.abort();
       clearTimeout(timer);
+      window.removeEventListener('offline', onOffline);
+      window.removeEventListener('online', onOnline);
       provider.off('status', onStatus);
       provider.off('sync', onSync);
       provider.off('connection-close', onClose);
