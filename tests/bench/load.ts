@@ -407,8 +407,8 @@ async function socketPhase(server: ServerProc, cookies: string[]): Promise<{ fig
 // ---- main ----
 
 async function main(): Promise<void> {
-  // 400 socket clients and repeated autocannon runs each add process listeners; that is expected here.
-  process.setMaxListeners(100);
+  // Each of the 400 socket clients (and each autocannon run) adds a process 'exit' listener while it lives.
+  process.setMaxListeners(1000);
   const dir = mkdtempSync(join(tmpdir(), 'matchloom-load-'));
   let server: ServerProc | null = null;
   let failed: boolean;
