@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import * as initial from './20261201_0001_initial';
 import * as team from './20261215_0002_team';
+import * as postgresCompat from './20261220_0003_postgres_compat';
 
 /**
  * The migrations, listed in order. A static list (rather than a folder scan) works the same under tsx,
@@ -9,6 +10,7 @@ import * as team from './20261215_0002_team';
 const migrations: Record<string, Knex.Migration> = {
   '20261201_0001_initial': initial,
   '20261215_0002_team': team,
+  '20261220_0003_postgres_compat': postgresCompat,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

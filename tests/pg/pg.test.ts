@@ -25,7 +25,7 @@ suite(databaseUrl ? 'PostgreSQL' : 'PostgreSQL (DATABASE_URL not set: run script
     const config: Config = {
       ...loadConfig({
         NODE_ENV: 'test',
-        LOG_LEVEL: 'silent',
+        LOG_LEVEL: process.env.PG_TEST_LOG ?? 'silent',
         DATABASE_URL: databaseUrl,
         // The server opens the database through DATABASE_FILE's setting; a postgres:// address there picks pg.
         DATABASE_FILE: databaseUrl,
