@@ -249,6 +249,35 @@ describe('room workspace', () => {
     tuner.assertClean();
   });
 
+  it('opens a local .s1p file in the load form and the figures follow the measured load', async () => {
+    const { page } = tuner;
+    await openTab(page, 'Load');
+    const load = page.getByRole('form', { name: 'Load' });
+    const worstBefore = await summaryWorst(page).innerText();
+    await load.getByLabel('Load model').selectOption('measured');
+    await load.getByLabel('Open a .s1p file from this computer').setInputFiles({
+      name: 'chip-antenna-remeasured.s1p',
+      mimeType: 'text/plain',
+      buffer: Buffer.from(remeasuredChipAntenna(), 'utf8'),
+    });
+    await load.getByText('(chip-antenna-remeasured.s1p)').waitFor();
+    expect(await load.getByLabel(/^Touchstone text/).inputValue()).toContain('# GHz S RI R 50');
+    await load.getByRole('button', { name: 'Apply load' }).click();
+    // The summary is worked out again from the measured data: a different worst-in-band VSWR, never NaN.
+    await expect.poll(() => summaryWorst(page).innerText(), { timeout: 15_000 }).not.toBe(worstBefore);
+    expect(await summaryWorst(page).innerText()).toMatch(/VSWR\s+\d/);
+    expect(await workspace(page).innerText()).not.toMatch(/NaN|Infinity/);
+    await tuner.screenshot('workspace-05b-measured-load');
+    // Put the model back so the tests after this one see the room they expect.
+    await load.getByLabel('Load model').selectOption('rlc');
+    await load.getByLabel('R (Ω)').fill('18');
+    await load.getByLabel('L (H)').fill('3.9n');
+    await load.getByLabel('C (F)').fill('1.3p');
+    await load.getByRole('button', { name: 'Apply load' }).click();
+    await expect.poll(() => summaryWorst(page).innerText(), { timeout: 15_000 }).toBe(worstBefore);
+    tuner.assertClean();
+  });
+
   it('on the chain canvas: a click selects, dragging the value or the wheel tunes, dragging a part reorders', async () => {
     const { page } = tuner;
     await openTab(page, 'Element');
@@ -294,3 +323,23 @@ describe('room workspace', () => {
     tuner.assertClean();
   });
 });
+
+/**
+ * An invented "re-measured" chip antenna: the demo series RLC (L 3.9 nH, C 1.3 pF) with R raised
+ * from 18 to 30 Ω, as Touchstone RI data from 1.9 to 3.0 GHz. Z = R + j(ωL − 1/(ωC)) and
+ * Γ = (Z − 50)/(Z + 50) (common practice).
+ */
+function remeasuredChipAntenna(): string {
+  const lines = ['! invented re-measurement of the demo chip antenna', '# GHz S RI R 50'];
+  for (let i = 0; i <= 110; i++) {
+    const f = 1.9e9 + i * 10e6;
+    const w = 2 * Math.PI * f;
+    const re = 30;
+    const im = w * 3.9e-9 - 1 / (w * 1.3e-12);
+    const den = (re + 50) ** 2 + im ** 2;
+    const gRe = ((re - 50) * (re + 50) + im * im) / den;
+    const gIm = (im * (re + 50) - (re - 50) * im) / den;
+    lines.push(`${(f / 1e9).toFixed(3)} ${gRe.toFixed(6)} ${gIm.toFixed(6)}`);
+  }
+  return lines.join('\n') + '\n';
+}
