@@ -4,7 +4,6 @@
  */
 import express from 'express';
 import cookieParser from 'cookie-parser';
-import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Knex } from 'knex';
 import type { Config } from './config';
@@ -28,6 +27,7 @@ import { devMailboxRoutes } from './routes/dev-mailbox';
 import type { Mailer } from './mail/mailer';
 import type { RoomUpdateSink } from './rooms/document-edit';
 import { clientRoutes } from './static';
+import { securityMiddleware } from './security/index';
 
 /** The part of the collab hub that routes call when rooms change. */
 export interface RoomEvents {
@@ -58,29 +58,19 @@ export interface AppDeps {
 /** Largest JSON body: a design with an embedded Touchstone measurement fits comfortably. */
 export const JSON_BODY_LIMIT = '2mb';
 
+/** A request URL fit for the log: invitation links and `token=` values are secrets. */
+export function redactUrl(url: string): string {
+  return url
+    .replace(/(\/invitations\/)[^/?#]+/g, '$1[redacted]')
+    .replace(/([?&]token=)[^&#]*/g, '$1[redacted]');
+}
+
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
 
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        useDefaults: true,
-        directives: {
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'font-src': ["'self'", 'data:'],
-          'style-src': ["'self'", "'unsafe-inline'"],
-          'worker-src': ["'self'", 'blob:'],
-          'connect-src': ["'self'", 'ws:', 'wss:'],
-          'upgrade-insecure-requests': deps.config.nodeEnv === 'production' ? [] : null,
-        },
-      },
-      // The app is same-origin only; no need to open it to cross-origin embedding.
-      crossOriginEmbedderPolicy: false,
-      strictTransportSecurity: deps.config.nodeEnv === 'production',
-    }),
-  );
+  app.use(securityMiddleware(deps.config)); // headers, CSP, no-store on /api, rate limits (server/security)
 
   app.use(
     pinoHttp({
@@ -92,7 +82,7 @@ export function createApp(deps: AppDeps): express.Express {
         req: (req: { method: string; url: string; id: unknown }) => ({
           id: req.id,
           method: req.method,
-          url: req.url,
+          url: redactUrl(req.url),
         }),
       },
     }),

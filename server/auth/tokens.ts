@@ -37,6 +37,7 @@ export function createTokenService(secret: Uint8Array): TokenService {
         algorithms: [ALG],
         issuer: TOKEN_ISSUER,
         audience,
+        requiredClaims: ['exp', 'iat'],
       });
       return typeof payload.sub === 'string' && payload.sub ? payload : null;
     } catch {

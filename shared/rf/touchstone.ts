@@ -28,11 +28,16 @@ export interface TouchstoneData {
 /** A Touchstone text that does not parse: `line` is 1-based, `reason` says what was expected. */
 export class TouchstoneError extends Error {
   readonly code = 'invalid-touchstone';
+  readonly reason: string;
   constructor(
     readonly line: number,
-    readonly reason: string,
+    reason: string,
   ) {
-    super(`line ${line}: ${reason}`);
+    // A message quotes bits of the file; never echo a huge token or a huge line back to the user.
+    const short = reason.replace(/\S{41,}/g, (t) => `${t.slice(0, 24)}…`);
+    const clipped = short.length > 300 ? `${short.slice(0, 300)}…` : short;
+    super(`line ${line}: ${clipped}`);
+    this.reason = clipped;
     this.name = 'TouchstoneError';
   }
 }

@@ -135,7 +135,7 @@ describe('POST /api/auth/signin', () => {
         .post('/api/auth/signin')
         .send({ email, password: TEST_PASSWORD })
         .expect(429);
-      expect(braked.body.error.code).toBe('too-many-attempts');
+      expect(braked.body.error.code).toBe('too-many-requests');
       await dev
         .agent()
         .post('/api/auth/signin')

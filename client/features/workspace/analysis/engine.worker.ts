@@ -3,6 +3,9 @@
  * (engine-core.ts via engine-worker-api.ts). Results travel back with their buffers transferred.
  */
 import * as Comlink from 'comlink';
+import { z } from 'zod';
 import { engineWorkerApi } from './engine-worker-api';
+
+z.config({ jitless: true }); // no eval under the content security policy
 
 Comlink.expose(engineWorkerApi());
