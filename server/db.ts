@@ -79,12 +79,35 @@ export function databaseSettings(databaseFile: string, databaseUrl?: string): Kn
   };
 }
 
+interface KnexTransactionInternals {
+  begin(conn: unknown): unknown;
+  query(conn: unknown, sql: string): unknown;
+}
+
+/**
+ * SQLite transactions begin IMMEDIATE (take the write lock first, waiting out busy_timeout) rather than
+ * Knex's deferred BEGIN. A deferred transaction that reads, then writes after another connection (the
+ * collab writer, a backup, a second process) has committed, fails at once with SQLITE_BUSY_SNAPSHOT: no
+ * busy timeout can save it. tests/faults/busy.test.ts shows both.
+ */
+function beginImmediate(knex: Knex): void {
+  const client = knex.client as unknown as { transaction(...args: unknown[]): KnexTransactionInternals };
+  const transaction = client.transaction.bind(client);
+  client.transaction = (...args: unknown[]) => {
+    const trx = transaction(...args);
+    trx.begin = (conn: unknown) => trx.query(conn, 'BEGIN IMMEDIATE;');
+    return trx;
+  };
+}
+
 /** Open the database: PostgreSQL for a postgres:// address, else the SQLite file (its folder created first). */
 export function createKnex(databaseFile: string, databaseUrl?: string): Knex {
   const settings = databaseSettings(databaseFile, databaseUrl);
-  if (settings.client === 'better-sqlite3' && databaseFile !== ':memory:')
-    mkdirSync(dirname(resolve(databaseFile)), { recursive: true });
-  return knexFactory(settings);
+  if (settings.client !== 'better-sqlite3') return knexFactory(settings);
+  if (databaseFile !== ':memory:') mkdirSync(dirname(resolve(databaseFile)), { recursive: true });
+  const knex = knexFactory(settings);
+  beginImmediate(knex);
+  return knex;
 }
 
 /** True when `knex` talks to PostgreSQL. */

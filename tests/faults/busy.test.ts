@@ -48,6 +48,22 @@ describe('writes while another connection holds the write lock', () => {
     expect(names).toEqual(expect.arrayContaining(['Busy room 0', 'Busy room 1']));
   });
 
+  it('transactions that read before they write (members, roles, snapshots) also wait and succeed', async () => {
+    const owner = await signUp(server);
+    const tuner = await signUp(server);
+    const roomId = (await owner.agent.post('/api/rooms').send({ name: 'Read then write' }).expect(201)).body.id;
+    const lock = await holdWriteLock(server.config.databaseFile, 1000);
+    const results = await Promise.all([
+      owner.agent.post(`/api/rooms/${roomId}/members`).send({ email: tuner.user.email, role: 'observer' }),
+      owner.agent.post(`/api/rooms/${roomId}/members`).send({ email: uniqueEmail('invitee'), role: 'tuner' }),
+      owner.agent.post(`/api/rooms/${roomId}/snapshots`).send({ label: 'during the lock' }),
+    ]);
+    await lock.released;
+    // 202: an unknown address is invited by e-mail.
+    expect(results.map((r) => r.status)).toEqual([201, 202, 201]);
+    await owner.agent.patch(`/api/rooms/${roomId}/members/${tuner.user.id}`).send({ role: 'tuner' }).expect(200);
+  });
+
   it('reads and writes after the lock is released work as before', async () => {
     const { agent } = await signUp(server);
     await agent.post('/api/rooms').send({ name: 'After the lock' }).expect(201);
