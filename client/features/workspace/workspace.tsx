@@ -6,7 +6,7 @@
  * room. Everything is derived from the room's shared document, so every collaborator's edit shows
  * at once; an observer sees it all live with no editing control.
  */
-import { useCallback, useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
+import { memo, useCallback, useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { presenceColour } from '../../../shared/collab/presence';
@@ -211,25 +211,39 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
       setTab('element');
     }
   };
-  const removeEl = (id: string) => {
-    if (!design) return;
-    const i = design.elements.findIndex((e) => e.id === id);
-    const neighbour = design.elements[i + 1] ?? design.elements[i - 1] ?? null;
-    edits.remove(id);
-    setSelected(neighbour?.id ?? null);
-  };
-  const duplicateEl = (id: string) => {
-    const copy = edits.duplicate(id);
-    if (copy) setSelected(copy);
-  };
-  const elementActions = {
-    setField: edits.setField,
-    setFields: edits.setFields,
-    tuneField: edits.tuneField,
-    remove: removeEl,
-    duplicate: duplicateEl,
-    move: edits.move,
-  };
+  // Stable callbacks (they read the newest design through a ref), so memoised children such as the
+  // chain canvas re-render only when what they show changes.
+  const latestDesign = useRef(design);
+  latestDesign.current = design;
+  const removeEl = useCallback(
+    (id: string) => {
+      const current = latestDesign.current;
+      if (!current) return;
+      const i = current.elements.findIndex((e) => e.id === id);
+      const neighbour = current.elements[i + 1] ?? current.elements[i - 1] ?? null;
+      edits.remove(id);
+      setSelected(neighbour?.id ?? null);
+    },
+    [edits],
+  );
+  const duplicateEl = useCallback(
+    (id: string) => {
+      const copy = edits.duplicate(id);
+      if (copy) setSelected(copy);
+    },
+    [edits],
+  );
+  const elementActions = useMemo(
+    () => ({
+      setField: edits.setField,
+      setFields: edits.setFields,
+      tuneField: edits.tuneField,
+      remove: removeEl,
+      duplicate: duplicateEl,
+      move: edits.move,
+    }),
+    [edits, removeEl, duplicateEl],
+  );
 
   // ---- sizes -----------------------------------------------------------------------------------
   const root = useRef<HTMLDivElement>(null);
@@ -304,7 +318,7 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
       {room.everSynced ? 'The design cannot be shown.' : 'Opening the room…'}
     </p>
   );
-  const panels: Record<TabKey, ReactNode> = !design
+  const panelsLive: Record<TabKey, ReactNode> = !design
     ? {
         element: waiting,
         load: waiting,
@@ -399,6 +413,17 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
           </div>
         ),
       };
+
+  // A hidden panel keeps its last rendering (and its state) until it is shown again, so a tuned
+  // value re-renders only the panel in view.
+  const panels = Object.fromEntries(
+    (Object.keys(panelsLive) as TabKey[]).map((k) => [
+      k,
+      <HiddenWhileInactive key={k} active={k === tab}>
+        {panelsLive[k]}
+      </HiddenWhileInactive>,
+    ]),
+  ) as Record<TabKey, ReactNode>;
 
   return (
     <div
@@ -618,6 +643,14 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
     </div>
   );
 }
+
+/** Renders its children while active; while inactive (and staying so) it skips re-rendering. */
+const HiddenWhileInactive = memo(
+  function HiddenWhileInactive({ children }: { active: boolean; children: ReactNode }) {
+    return <>{children}</>;
+  },
+  (prev, next) => !prev.active && !next.active,
+);
 
 function ConnectionChip({ status, synced }: { status: string; synced: boolean }) {
   const text =

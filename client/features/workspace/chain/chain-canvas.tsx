@@ -5,7 +5,7 @@
  * (Shift coarse, Alt fine), Ctrl+← → move the element, Delete removes, Ctrl+D duplicates.
  */
 import type Konva from 'konva';
-import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
+import { memo, useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { Circle, Group, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import type { Design, Element } from '../../../../shared/rf/design';
 import type { ESeries } from '../../../../shared/rf/eseries';
@@ -46,7 +46,10 @@ interface TuneDrag {
   startValue: number;
 }
 
-export function ChainCanvas(props: ChainCanvasProps) {
+/** Re-renders only when one of its props changes (the workspace passes stable callbacks). */
+export const ChainCanvas = memo(ChainCanvasView);
+
+function ChainCanvasView(props: ChainCanvasProps) {
   const { design, selectedId, editable, series } = props;
   const elements = design.elements;
   const layout = chainLayout(elements.length);
@@ -56,11 +59,18 @@ export function ChainCanvas(props: ChainCanvasProps) {
   latest.current = props;
   const drag = useRef<TuneDrag | null>(null);
 
-  // Vertical value drags follow the pointer outside the canvas too.
+  // Vertical value drags follow the pointer outside the canvas too. Moves are coalesced: the newest
+  // one is applied once per animation frame (and at once on release), so a burst of pointer events
+  // makes one document edit, not one each.
   useEffect(() => {
-    const move = (ev: PointerEvent) => {
+    let pending: { clientY: number; shiftKey: boolean; altKey: boolean } | null = null;
+    let frame = 0;
+    const apply = () => {
+      frame = 0;
       const d = drag.current;
-      if (!d) return;
+      const ev = pending;
+      pending = null;
+      if (!d || !ev) return;
       const p = latest.current;
       const el = p.design.elements.find((e) => e.id === d.id);
       const t = el ? tunableOf(el) : null;
@@ -72,13 +82,21 @@ export function ChainCanvas(props: ChainCanvasProps) {
       });
       if (next !== t.current) p.onTune(d.id, t.field, t.fieldValue(next));
     };
+    const move = (ev: PointerEvent) => {
+      if (!drag.current) return;
+      pending = { clientY: ev.clientY, shiftKey: ev.shiftKey, altKey: ev.altKey };
+      if (!frame) frame = requestAnimationFrame(apply);
+    };
     const up = () => {
+      if (frame) cancelAnimationFrame(frame);
+      apply();
       drag.current = null;
       document.body.style.cursor = '';
     };
     window.addEventListener('pointermove', move);
     window.addEventListener('pointerup', up);
     return () => {
+      if (frame) cancelAnimationFrame(frame);
       window.removeEventListener('pointermove', move);
       window.removeEventListener('pointerup', up);
     };

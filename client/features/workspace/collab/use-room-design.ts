@@ -5,7 +5,7 @@
  */
 import { useEffect, useState } from 'react';
 import type * as Y from 'yjs';
-import { readDesign } from '../../../../shared/collab/schema';
+import { readDesign, readDesignInput } from '../../../../shared/collab/schema';
 import { DesignError, type Design } from '../../../../shared/rf/design';
 
 export interface RoomDesignState {
@@ -26,6 +26,47 @@ export function readRoomDesign(doc: Y.Doc): DesignReading {
   }
 }
 
+/** The document's content as a string (null when it cannot be read), to skip re-reading an unchanged one. */
+function inputKey(doc: Y.Doc): string | null {
+  try {
+    return JSON.stringify(readDesignInput(doc));
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * `next`, with every top-level field and element that reads the same as in `prev` replaced by
+ * `prev`'s object (and `prev` itself when nothing changed).
+ */
+export function shareUnchanged(prev: Design | null, next: Design): Design {
+  if (!prev) return next;
+  const same = (a: unknown, b: unknown) => a === b || JSON.stringify(a) === JSON.stringify(b);
+  const prevById = new Map(prev.elements.map((e) => [e.id, e]));
+  let elementsSame = prev.elements.length === next.elements.length;
+  const elements = next.elements.map((e, i) => {
+    const old = prevById.get(e.id);
+    const kept = old && same(old, e) ? old : e;
+    if (kept !== prev.elements[i]) elementsSame = false;
+    return kept;
+  });
+  const out: Record<string, unknown> = {};
+  let allSame = elementsSame && Object.keys(prev).length === Object.keys(next).length;
+  for (const [k, v] of Object.entries(next)) {
+    if (k === 'elements') {
+      out[k] = elementsSame ? prev.elements : elements;
+      continue;
+    }
+    const old = (prev as unknown as Record<string, unknown>)[k];
+    if (same(old, v)) out[k] = old;
+    else {
+      out[k] = v;
+      allSame = false;
+    }
+  }
+  return allSame ? prev : (out as unknown as Design);
+}
+
 /**
  * `ready` says the document holds the room's content (it has synced once); before that an empty
  * document is not an error.
@@ -38,10 +79,20 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesignStat
       setState({ design: null, error: null });
       return;
     }
+    // One reading per document update; an unchanged document is not re-validated, and a new design
+    // keeps the previous one's unchanged parts (same objects), so memoised views of them skip work.
+    let lastKey: string | null = null;
     const refresh = () => {
+      const key = inputKey(doc);
+      if (key !== null && key === lastKey) return;
       const reading = readRoomDesign(doc);
-      if (reading.ok) setState({ design: reading.design, error: null });
-      else if (ready) setState((s) => ({ design: s.design, error: reading.message }));
+      if (reading.ok) {
+        lastKey = key;
+        setState((s) => ({ design: shareUnchanged(s.design, reading.design), error: null }));
+      } else {
+        lastKey = null;
+        if (ready) setState((s) => ({ design: s.design, error: reading.message }));
+      }
     };
     refresh();
     doc.on('update', refresh);
