@@ -52,7 +52,7 @@ function loopbackHost(host: string): string {
 
 export async function startServer(config: Config, options: StartOptions = {}): Promise<RunningServer> {
   const logger = options.logger ?? createLogger(config);
-  const knex = createKnex(config.databaseFile);
+  const knex = createKnex(config.databaseFile, config.databaseUrl);
   let ready = false;
   let demoAccounts = false;
   let mailer: Mailer | undefined;

@@ -17,7 +17,7 @@ async function main(): Promise<number> {
     }
     throw e;
   }
-  const knex = createKnex(config.databaseFile);
+  const knex = createKnex(config.databaseFile, config.databaseUrl);
   try {
     const applied = await migrateLatest(knex);
     process.stdout.write(applied.length ? `applied: ${applied.join(', ')}\n` : 'already up to date\n');
