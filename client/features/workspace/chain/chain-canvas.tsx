@@ -50,7 +50,7 @@ interface TuneDrag {
 export const ChainCanvas = memo(ChainCanvasView);
 
 function ChainCanvasView(props: ChainCanvasProps) {
-  const { design, selectedId, editable, series } = props;
+  const { design, selectedId, editable } = props;
   const elements = design.elements;
   const layout = chainLayout(elements.length);
   const stageWidth = Math.max(props.width, layout.width);
@@ -109,11 +109,27 @@ function ChainCanvasView(props: ChainCanvasProps) {
   }, [props.peers]);
 
   const tuneBy = (e: Element, steps: number, mods: { shiftKey?: boolean; altKey?: boolean }) => {
+    const p = latest.current;
     const t = tunableOf(e);
-    if (!t || !editable) return;
-    const next = stepValue(t.current, steps, { scale: t.scale, size: stepSizeFromModifiers(mods), series: t.preferredValues ? series : null });
-    if (next !== t.current) props.onTune(e.id, t.field, t.fieldValue(next));
+    if (!t || !p.editable) return;
+    const next = stepValue(t.current, steps, { scale: t.scale, size: stepSizeFromModifiers(mods), series: t.preferredValues ? p.series : null });
+    if (next !== t.current) p.onTune(e.id, t.field, t.fieldValue(next));
   };
+  const tuneByRef = useRef(tuneBy);
+  tuneByRef.current = tuneBy;
+  const cellActions = useMemo<CellActions>(
+    () => ({
+      select: (id) => latest.current.onSelect(id),
+      move: (id, index) => latest.current.onMove(id, index),
+      count: () => latest.current.design.elements.length,
+      tuneBy: (e, steps, mods) => tuneByRef.current(e, steps, mods),
+      startDrag: (e, clientY, startValue) => {
+        drag.current = { id: e.id, startY: clientY, startValue };
+        document.body.style.cursor = 'ns-resize';
+      },
+    }),
+    [],
+  );
 
   const onKeyDown = (ev: KeyboardEvent<HTMLDivElement>) => {
     const index = elements.findIndex((e) => e.id === selectedId);
@@ -201,110 +217,18 @@ function ChainCanvasView(props: ChainCanvasProps) {
               />
             </>
           )}
-          {elements.map((e, index) => {
-            const x = layout.cellX(index);
-            const isSelected = e.id === selectedId;
-            const others = peerSelections.get(e.id) ?? [];
-            return (
-              <Group
-                key={e.id}
-                x={x}
-                y={0}
-                draggable={editable}
-                dragBoundFunc={(pos) => ({ x: pos.x, y: 0 })}
-                onDragStart={() => props.onSelect(e.id)}
-                onDragEnd={(ev) => {
-                  const node = ev.target;
-                  const target = dropIndex(node.x(), elements.length);
-                  node.position({ x, y: 0 });
-                  if (target !== index) props.onMove(e.id, target);
-                }}
-                onClick={() => props.onSelect(e.id)}
-                onTap={() => props.onSelect(e.id)}
-                onWheel={(ev) => {
-                  if (!editable || !tunableOf(e)) return;
-                  ev.evt.preventDefault();
-                  props.onSelect(e.id);
-                  tuneBy(e, wheelSteps(ev.evt.deltaY), ev.evt);
-                }}
-                onMouseEnter={(ev) => {
-                  const c = ev.target.getStage()?.container();
-                  if (c && editable) c.style.cursor = 'grab';
-                }}
-                onMouseLeave={(ev) => {
-                  const c = ev.target.getStage()?.container();
-                  if (c) c.style.cursor = '';
-                }}
-              >
-                <Rect
-                  x={3}
-                  y={3}
-                  width={CELL_WIDTH - 6}
-                  height={GROUND_Y + 16}
-                  cornerRadius={8}
-                  fill={isSelected ? '#f8ead0' : 'rgba(0,0,0,0)'}
-                  stroke={isSelected ? AMBER : undefined}
-                  strokeWidth={isSelected ? 2 : 0}
-                />
-                {others.map((peer, i) => (
-                  <Group key={peer.clientId}>
-                    <Rect
-                      x={6 + i * 3}
-                      y={6 + i * 3}
-                      width={CELL_WIDTH - 12 - i * 6}
-                      height={GROUND_Y + 10 - i * 6}
-                      cornerRadius={7}
-                      stroke={peer.user.color}
-                      strokeWidth={2}
-                      dash={[6, 4]}
-                      listening={false}
-                    />
-                    <Rect x={CELL_WIDTH - 30 - i * 22} y={GROUND_Y + 2} width={20} height={14} cornerRadius={7} fill={peer.user.color} listening={false} />
-                    <Text
-                      x={CELL_WIDTH - 30 - i * 22}
-                      y={GROUND_Y + 4}
-                      width={20}
-                      align="center"
-                      text={initials(peer.user.name)}
-                      fontSize={9}
-                      fontStyle="bold"
-                      fill="#ffffff"
-                      listening={false}
-                    />
-                  </Group>
-                ))}
-                <ElementSymbol element={e} />
-                <Text x={0} y={8} width={CELL_WIDTH} align="center" text={elementName(e)} fontSize={13} fontStyle="bold" fill={tintOf(e)} listening={false} />
-                <Text
-                  x={8}
-                  y={24}
-                  width={CELL_WIDTH - 16}
-                  height={16}
-                  align="center"
-                  text={elementValueLabel(e)}
-                  fontSize={12}
-                  fontFamily="ui-monospace, 'DejaVu Sans Mono', monospace"
-                  fill={INK}
-                  wrap="none"
-                  ellipsis
-                  onMouseEnter={(ev) => {
-                    const c = ev.target.getStage()?.container();
-                    if (c && editable && tunableOf(e)) c.style.cursor = 'ns-resize';
-                  }}
-                  onMouseDown={(ev) => {
-                    const t = tunableOf(e);
-                    if (!editable || !t) return;
-                    ev.cancelBubble = true;
-                    ev.evt.preventDefault();
-                    props.onSelect(e.id);
-                    drag.current = { id: e.id, startY: ev.evt.clientY, startValue: t.current };
-                    document.body.style.cursor = 'ns-resize';
-                  }}
-                />
-                {e.locked && <LockMark x={CELL_WIDTH - 22} y={8} />}
-              </Group>
-            );
-          })}
+          {elements.map((e, index) => (
+            <ChainCell
+              key={e.id}
+              element={e}
+              index={index}
+              x={layout.cellX(index)}
+              isSelected={e.id === selectedId}
+              others={peerSelections.get(e.id) ?? NO_PEERS}
+              editable={editable}
+              actions={cellActions}
+            />
+          ))}
           {remoteCursors.map((peer) => (
             <Group key={peer.clientId} x={peer.cursor.x} y={peer.cursor.y} listening={false}>
               <Line points={[0, 0, 0, 14, 4, 10, 10, 10]} closed fill={peer.user.color} stroke="#ffffff" strokeWidth={1} />
@@ -317,7 +241,141 @@ function ChainCanvasView(props: ChainCanvasProps) {
   );
 }
 
-function PortSymbol({ design }: { design: Design }) {
+const NO_PEERS: Peer[] = [];
+const keepOnRail = (pos: { x: number; y: number }) => ({ x: pos.x, y: 0 });
+const clearCursor = (ev: Konva.KonvaEventObject<MouseEvent>) => {
+  const c = ev.target.getStage()?.container();
+  if (c) c.style.cursor = '';
+};
+
+/** What a chain cell asks of the canvas; one stable object, reading the canvas's newest props. */
+interface CellActions {
+  select(id: string): void;
+  move(id: string, index: number): void;
+  count(): number;
+  tuneBy(e: Element, steps: number, mods: { shiftKey?: boolean; altKey?: boolean }): void;
+  startDrag(e: Element, clientY: number, startValue: number): void;
+}
+
+interface ChainCellProps {
+  element: Element;
+  index: number;
+  x: number;
+  isSelected: boolean;
+  others: Peer[];
+  editable: boolean;
+  actions: CellActions;
+}
+
+/** One element on the canvas; memoised, so tuning one value re-renders only its cell. */
+const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, others, editable, actions }: ChainCellProps) {
+  const select = () => actions.select(e.id);
+  const onDragEnd = (ev: Konva.KonvaEventObject<DragEvent>) => {
+    const node = ev.target;
+    const target = dropIndex(node.x(), actions.count());
+    node.position({ x, y: 0 });
+    if (target !== index) actions.move(e.id, target);
+  };
+  const onWheel = (ev: Konva.KonvaEventObject<WheelEvent>) => {
+    if (!editable || !tunableOf(e)) return;
+    ev.evt.preventDefault();
+    actions.select(e.id);
+    actions.tuneBy(e, wheelSteps(ev.evt.deltaY), ev.evt);
+  };
+  const onEnter = (ev: Konva.KonvaEventObject<MouseEvent>) => {
+    const c = ev.target.getStage()?.container();
+    if (c && editable) c.style.cursor = 'grab';
+  };
+  const onValueEnter = (ev: Konva.KonvaEventObject<MouseEvent>) => {
+    const c = ev.target.getStage()?.container();
+    if (c && editable && tunableOf(e)) c.style.cursor = 'ns-resize';
+  };
+  const onValueDown = (ev: Konva.KonvaEventObject<MouseEvent>) => {
+    const t = tunableOf(e);
+    if (!editable || !t) return;
+    ev.cancelBubble = true;
+    ev.evt.preventDefault();
+    actions.select(e.id);
+    actions.startDrag(e, ev.evt.clientY, t.current);
+  };
+  return (
+    <Group
+      key={e.id}
+      x={x}
+      y={0}
+      draggable={editable}
+      dragBoundFunc={keepOnRail}
+      onDragStart={select}
+      onDragEnd={onDragEnd}
+      onClick={select}
+      onTap={select}
+      onWheel={onWheel}
+      onMouseEnter={onEnter}
+      onMouseLeave={clearCursor}
+    >
+      <Rect
+        x={3}
+        y={3}
+        width={CELL_WIDTH - 6}
+        height={GROUND_Y + 16}
+        cornerRadius={8}
+        fill={isSelected ? '#f8ead0' : 'rgba(0,0,0,0)'}
+        stroke={isSelected ? AMBER : undefined}
+        strokeWidth={isSelected ? 2 : 0}
+      />
+      {others.map((peer, i) => (
+        <Group key={peer.clientId}>
+          <Rect
+            x={6 + i * 3}
+            y={6 + i * 3}
+            width={CELL_WIDTH - 12 - i * 6}
+            height={GROUND_Y + 10 - i * 6}
+            cornerRadius={7}
+            stroke={peer.user.color}
+            strokeWidth={2}
+            dash={[6, 4]}
+            listening={false}
+          />
+          <Rect x={CELL_WIDTH - 30 - i * 22} y={GROUND_Y + 2} width={20} height={14} cornerRadius={7} fill={peer.user.color} listening={false} />
+          <Text
+            x={CELL_WIDTH - 30 - i * 22}
+            y={GROUND_Y + 4}
+            width={20}
+            align="center"
+            text={initials(peer.user.name)}
+            fontSize={9}
+            fontStyle="bold"
+            fill="#ffffff"
+            listening={false}
+          />
+        </Group>
+      ))}
+      <ElementSymbol element={e} />
+      <Text x={0} y={8} width={CELL_WIDTH} align="center" text={elementName(e)} fontSize={13} fontStyle="bold" fill={tintOf(e)} listening={false} />
+      <Text
+        x={8}
+        y={24}
+        width={CELL_WIDTH - 16}
+        height={16}
+        align="center"
+        text={elementValueLabel(e)}
+        fontSize={12}
+        fontFamily="ui-monospace, 'DejaVu Sans Mono', monospace"
+        fill={INK}
+        wrap="none"
+        ellipsis
+        onMouseEnter={onValueEnter}
+        onMouseDown={onValueDown}
+      />
+      {e.locked && <LockMark x={CELL_WIDTH - 22} y={8} />}
+    </Group>
+  );
+});
+
+const PortSymbol = memo(PortSymbolView, (a, b) => a.design.port === b.design.port && a.design.referenceOhms === b.design.referenceOhms);
+const LoadSymbol = memo(LoadSymbolView, (a, b) => a.design.load === b.design.load && a.x === b.x);
+
+function PortSymbolView({ design }: { design: Design }) {
   const [re, im] = design.port?.impedance ?? [design.referenceOhms, 0];
   const zText = im === 0 ? formatEngineering(re, 'Ω', { digits: 3 }) : `${formatEngineering(re, 'Ω', { digits: 3 })}, j${formatEngineering(im, '', { digits: 3 })}`;
   const cx = 44;
@@ -336,7 +394,7 @@ function PortSymbol({ design }: { design: Design }) {
   );
 }
 
-function LoadSymbol({ design, x }: { design: Design; x: number }) {
+function LoadSymbolView({ design, x }: { design: Design; x: number }) {
   const boxX = x + 30;
   return (
     <Group x={0} listening={false}>
