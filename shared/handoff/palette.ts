@@ -31,7 +31,8 @@ export const REPORT_PALETTE = {
   rule: tint('#1e2b47', 0.2),
 } as const;
 
-const KIND_COLOURS: Record<string, string> = {
+/** Path colours by element kind; the workspace chart uses the same table. */
+export const KIND_COLOURS: Readonly<Record<string, string>> = {
   'series-l': '#1d8a84',
   'series-c': '#136560',
   'series-r': '#4fb3a9',

@@ -1,3 +1,5 @@
+import { KIND_COLOURS, kindFamily, type KindFamily } from '../../../../shared/handoff/palette';
+
 /**
  * The chart's colours: Matchloom's own palette (client/styles/app.css), repeated here because Konva
  * draws on a canvas and cannot read CSS custom properties cheaply.
@@ -26,31 +28,12 @@ export const CHART_PALETTE = {
 } as const;
 
 /**
- * Path segment colours by element kind: series parts in teal tones, shunt parts in coral tones,
- * line sections (and stubs, which are line sections too) in slate tones.
+ * Path segment colours by element kind (series parts teal, shunt parts coral, lines and stubs slate):
+ * one table, shared with the hand-off report's pictures.
  */
-const KIND_COLOURS: Record<string, string> = {
-  'series-l': '#1d8a84',
-  'series-c': '#136560',
-  'series-r': '#4fb3a9',
-  'shunt-l': '#e06a4f',
-  'shunt-c': '#a9412b',
-  'shunt-r': '#ee9a84',
-  line: '#5b6b80',
-  'open-stub': '#7d8ca1',
-  'short-stub': '#3f4c5e',
-  transformer: '#54437f',
-  'two-port': '#45526e',
-};
-
 export function elementKindColour(kind: string): string {
   return KIND_COLOURS[kind] ?? CHART_PALETTE.inkSoft;
 }
 
 /** Which family a kind belongs to, for the legend and the aria text. */
-export function elementKindFamily(kind: string): 'series' | 'shunt' | 'line' | 'other' {
-  if (kind.startsWith('series-')) return 'series';
-  if (kind.startsWith('shunt-')) return 'shunt';
-  if (kind === 'line' || kind === 'open-stub' || kind === 'short-stub') return 'line';
-  return 'other';
-}
+export const elementKindFamily: (kind: string) => KindFamily = kindFamily;
