@@ -10,7 +10,7 @@ import { createTokenService } from '../../server/auth/tokens';
 import { loopbackRoomSink } from '../../server/rooms/loopback-sink';
 import { parseDesign } from '../../shared/rf/design';
 import { whipE12Design, whipFirstCutDesign } from '../../shared/demo/designs';
-import { signUp, startTestServer, type TestServer } from './helpers/test-server';
+import { type signUp, signUpTeam, startTestServer, type TestServer } from './helpers/test-server';
 import { roomListener, roomPeer, waitFor } from './helpers/live';
 
 let server: TestServer;
@@ -22,10 +22,7 @@ let outsider: Account;
 
 beforeAll(async () => {
   server = await startTestServer();
-  owner = await signUp(server, { displayName: 'Olive Owner' });
-  tuner = await signUp(server, { displayName: 'Tom Tuner' });
-  observer = await signUp(server, { displayName: 'Orla Observer' });
-  outsider = await signUp(server, { displayName: 'Otto Outsider' });
+  ({ owner, tuner, observer, outsider } = await signUpTeam(server));
 });
 afterAll(async () => {
   await server.close();

@@ -1,7 +1,7 @@
 /** Review notes: anyone in the room writes and replies; threads, edit, resolve, delete; live events. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { whipE12Design } from '../../shared/demo/designs';
-import { signUp, startTestServer, type TestServer } from './helpers/test-server';
+import { signUp, signUpTeam, startTestServer, type TestServer } from './helpers/test-server';
 import { roomListener } from './helpers/live';
 
 let server: TestServer;
@@ -14,10 +14,7 @@ let roomId: string;
 
 beforeAll(async () => {
   server = await startTestServer();
-  owner = await signUp(server, { displayName: 'Olive Owner' });
-  tuner = await signUp(server, { displayName: 'Tom Tuner' });
-  observer = await signUp(server, { displayName: 'Orla Observer' });
-  outsider = await signUp(server, { displayName: 'Otto Outsider' });
+  ({ owner, tuner, observer, outsider } = await signUpTeam(server));
   roomId = (await owner.agent.post('/api/rooms').send({ name: 'Whip', design: whipE12Design() }).expect(201))
     .body.id;
   await owner.agent

@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { chipAntennaDesign } from '../../shared/demo/designs';
 import { CHIP_ANTENNA_S1P_NAME, chipAntennaTouchstone } from '../../shared/demo/chip-antenna-touchstone';
-import { signUp, startTestServer, type TestServer } from './helpers/test-server';
+import { type signUp, signUpTeam, startTestServer, type TestServer } from './helpers/test-server';
 import { roomListener } from './helpers/live';
 
 let server: TestServer;
@@ -14,10 +14,7 @@ let outsider: Account;
 
 beforeAll(async () => {
   server = await startTestServer();
-  owner = await signUp(server, { displayName: 'Olive Owner' });
-  tuner = await signUp(server, { displayName: 'Tom Tuner' });
-  observer = await signUp(server, { displayName: 'Orla Observer' });
-  outsider = await signUp(server, { displayName: 'Otto Outsider' });
+  ({ owner, tuner, observer, outsider } = await signUpTeam(server));
 });
 afterAll(async () => {
   await server.close();

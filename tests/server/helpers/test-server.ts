@@ -98,3 +98,13 @@ export async function signIn(
   await agent.post('/api/auth/signin').send({ email, password }).expect(200);
   return agent;
 }
+
+/** The four accounts most room tests need: one for each role, and someone outside the room. */
+export async function signUpTeam(server: Pick<TestServer, 'agent'>) {
+  return {
+    owner: await signUp(server, { displayName: 'Olive Owner' }),
+    tuner: await signUp(server, { displayName: 'Tom Tuner' }),
+    observer: await signUp(server, { displayName: 'Orla Observer' }),
+    outsider: await signUp(server, { displayName: 'Otto Outsider' }),
+  };
+}
