@@ -28,7 +28,6 @@ import { RoomEvents } from './room-events';
 import { RoomLogWriter } from './room-log';
 import { RoomRegistry } from './rooms';
 import { openSyncUpdateWriter } from './store';
-import { WriteScheduler } from './write-scheduler';
 import { COLLAB_CLOSE } from '../../shared/collab/close-codes';
 
 export interface CollabHub {
@@ -75,15 +74,15 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
   // eslint-disable-next-line prefer-const
   let events: RoomEvents;
   const roomLog = new RoomLogWriter(knex, logger, limits, (roomId, entry) => events.emitLog(roomId, entry));
-  events = new RoomEvents({ knex, tokens, logger, limits, roomLog, publicUrl: config.publicUrl });
   const syncWriter = openSyncUpdateWriter(knex);
-  const scheduler = syncWriter ? new WriteScheduler(syncWriter, logger) : null;
-  const registry = new RoomRegistry({
+  // eslint-disable-next-line prefer-const
+  let registry: RoomRegistry;
+  events = new RoomEvents({ knex, tokens, logger, limits, roomLog, publicUrl: config.publicUrl, settleLog: (roomId) => registry.get(roomId)?.flushDescribe() });
+  registry = new RoomRegistry({
     knex,
     logger,
     limits,
     syncWriter,
-    scheduler,
     onChanges: (roomId, userId, changes) => roomLog.record(roomId, userId, changes),
   });
   // The hard cap sits above the per-message limit so that an oversized message gets a clear 4413.

@@ -56,6 +56,8 @@ export interface RoomEventsDeps {
   limits: CollabLimits;
   roomLog: RoomLogWriter;
   publicUrl?: string;
+  /** Settle the room's edits still waiting to be described, so that the history read next has them. */
+  settleLog?: (roomId: string) => void;
 }
 
 export class RoomEvents {
@@ -192,6 +194,7 @@ export class RoomEvents {
     if (who.onlyRoomId !== null && who.onlyRoomId !== roomId) return failure('not-a-member', 'your token is for another room');
     const role = await getRole(this.deps.knex, roomId, who.userId);
     if (!role) return failure('not-a-member', 'you are not a member of this room');
+    this.deps.settleLog?.(roomId);
     const [displayName, log] = await Promise.all([this.deps.roomLog.displayName(who.userId), this.deps.roomLog.history(roomId)]);
     if (!socket.connected) return failure('server-error', 'disconnected');
     let members = this.rooms.get(roomId);

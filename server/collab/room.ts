@@ -11,7 +11,6 @@ import type { Logger } from 'pino';
 import * as awarenessProtocol from 'y-protocols/awareness';
 import { appendUpdates, loadRoomDocument, saveRoomState, type SyncUpdateWriter } from './store';
 import type { CollabConnection } from './connection';
-import type { WriteScheduler } from './write-scheduler';
 import { formatBytes, type CollabLimits } from './limits';
 import {
   awarenessMessage,
@@ -32,8 +31,6 @@ export interface RoomDeps {
   limits: CollabLimits;
   /** Appends synchronously (SQLite); without it every write takes the async Knex path. */
   syncWriter?: SyncUpdateWriter | null;
-  /** Groups the rooms' synchronous appends into one transaction per turn of the event loop. */
-  scheduler?: WriteScheduler | null;
   /** Accepted changes, described, attributed to the member whose update made them. */
   onChanges?: (roomId: string, userId: string, changes: DesignChange[]) => void;
 }
@@ -61,6 +58,9 @@ export class RoomWriteError extends Error {
 
 /** The transaction origin of server-side edits on the live document (broadcast to every socket). */
 export const SERVER_ORIGIN = Symbol('matchloom-server-update');
+
+/** How long after an edit its room log description is made (ms). */
+const DESCRIBE_DELAY_MS = 40;
 
 type RoomState = 'open' | 'closing' | 'closed';
 
@@ -118,6 +118,9 @@ export class Room {
   private lastSnapshot: DesignSnapshot | null;
   /** Which connection speaks for each awareness client id. */
   private readonly awarenessOwners = new Map<number, CollabConnection>();
+  /** Whose edits since `lastSnapshot` are still to be described, and the timer that will. */
+  private describeUser: string | null = null;
+  private describeTimer: NodeJS.Timeout | null = null;
 
   private constructor(
     readonly id: string,
@@ -190,9 +193,11 @@ export class Room {
       this.pending.length = 0;
       this.stalled = [];
     }
-    // Store whatever is still queued (waiting for the scheduler or for the database) before compacting.
+    // Store whatever is still queued (waiting for the database) before compacting.
     if (this.pending.length > 0 || this.stalled.length > 0) this.startDrain();
     await this.idle();
+    if (opts.compact) this.flushDescribe();
+    else if (this.describeTimer) clearTimeout(this.describeTimer);
     if (opts.compact && this.sinceCompaction > 0) await this.compact();
     this.awareness.off('update', this.onAwarenessUpdate);
     this.awareness.destroy();
@@ -305,15 +310,15 @@ export class Room {
   // ---- the write queue ----
 
   /**
-   * Process the queue. With a synchronous writer (SQLite) the write scheduler stores this room's queue
-   * together with every other room's at the end of this turn of the event loop (one transaction), then
-   * the room applies and broadcasts; otherwise (another database, or a busy moment) the queue drains
+   * Process the queue. With a synchronous writer (SQLite) the queued updates are stored at once, in
+   * this turn of the event loop (one short transaction, no disk flush: WAL with synchronous=NORMAL),
+   * then applied and broadcast; otherwise (another database, or a busy moment) the queue drains
    * asynchronously, still in order.
    */
   private kick(): void {
     if (this.draining || this.state === 'closed') return;
-    if (this.deps.scheduler && this.stalled.length === 0) {
-      this.deps.scheduler.mark(this);
+    if (this.deps.syncWriter && this.stalled.length === 0) {
+      this.storeNow(this.deps.syncWriter);
       return;
     }
     this.startDrain();
@@ -327,28 +332,24 @@ export class Room {
     });
   }
 
-  /** For the write scheduler: the queued writes to store now (empty while the async path owns the queue). */
-  takeAdmitted(): PendingWrite[] {
-    if (this.draining || this.state === 'closed' || this.stalled.length > 0) return [];
-    return this.admit(this.pending.splice(0));
-  }
-
-  /** For the write scheduler: `batch` is stored with these ids. */
-  committed(batch: PendingWrite[], ids: number[]): void {
+  /** Store the queue synchronously; on a busy database hand it to the async path (which retries). */
+  private storeNow(writer: SyncUpdateWriter): void {
+    const batch = this.admit(this.pending.splice(0));
+    if (batch.length === 0) return;
+    let ids: number[] | null;
+    try {
+      ids = writer.append(this.id, this.rows(batch));
+    } catch (e) {
+      this.storeFailed(batch, e);
+      return;
+    }
+    if (ids === null) {
+      this.stalled = batch;
+      this.startDrain();
+      return;
+    }
     this.applyStored(batch, ids);
     if (this.sinceCompaction >= this.deps.limits.compactEvery && !this.compactNow()) this.startDrain();
-    if (this.pending.length > 0) this.kick();
-  }
-
-  /** For the write scheduler: the database was busy; store `batch` the async way before anything else. */
-  stall(batch: PendingWrite[]): void {
-    this.stalled = batch;
-    this.startDrain();
-  }
-
-  /** For the write scheduler: storing `batch` failed. */
-  failed(batch: PendingWrite[], e: unknown): void {
-    this.storeFailed(batch, e);
   }
 
   /** The queued writes that may be stored: the writer may still edit, the update is new, it fits. */
@@ -398,6 +399,8 @@ export class Room {
   private applyStored(batch: PendingWrite[], ids: number[]): void {
     for (let i = 0; i < batch.length; i++) {
       const w = batch[i];
+      // The pending description belongs to whoever made the edits since the last one: settle it first.
+      if (this.describeUser !== null && this.describeUser !== w.userId) this.flushDescribe();
       try {
         Y.applyUpdate(this.doc, w.update, w.conn ?? SERVER_ORIGIN);
       } catch (e) {
@@ -406,7 +409,7 @@ export class Room {
       }
       this.lastUpdateId = ids[i];
       this.sinceCompaction++;
-      if (w.userId) this.describe(w.userId);
+      if (w.userId) this.describeSoon(w.userId);
       else this.lastSnapshot = designSnapshot(this.doc);
       w.done?.resolve();
     }
@@ -430,6 +433,24 @@ export class Room {
       }
       this.applyStored(batch, ids);
     }
+  }
+
+  /**
+   * Describe `userId`'s edits for the room log a moment later, off the broadcast path: a run of edits
+   * by one person is read and compared once (an edit by someone else settles the run first).
+   */
+  private describeSoon(userId: string): void {
+    this.describeUser = userId;
+    this.describeTimer ??= setTimeout(() => this.flushDescribe(), DESCRIBE_DELAY_MS);
+  }
+
+  /** Describe now whatever edits are waiting to be described (before the room log is read). */
+  flushDescribe(): void {
+    if (this.describeTimer) clearTimeout(this.describeTimer);
+    this.describeTimer = null;
+    const userId = this.describeUser;
+    this.describeUser = null;
+    if (userId !== null && this.state !== 'closed') this.describe(userId);
   }
 
   private describe(userId: string): void {
