@@ -13,6 +13,7 @@ import { createPasswordHasher } from './auth/passwords';
 import { createApp } from './app';
 import { DEFAULT_CLIENT_DIR } from './static';
 import { createCollabHub } from './collab/index';
+import { connectCluster, redactRedisUrl, type Cluster } from './collab/cluster';
 import { seedDemo } from '../db/seeds/demo';
 import { findUserByEmail } from './services/users';
 import { DEMO_USERS } from '../shared/demo/designs';
@@ -56,6 +57,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
   let ready = false;
   let demoAccounts = false;
   let mailer: Mailer | undefined;
+  let cluster: Cluster | null = null;
   try {
     const applied = await migrateLatest(knex);
     if (applied.length) logger.info({ applied }, 'database migrated');
@@ -66,13 +68,18 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     demoAccounts =
       config.nodeEnv !== 'production' && (await findUserByEmail(knex, DEMO_USERS[0].email)) !== null;
     mailer = await createMailer(config, logger);
+    if (config.redisUrl) {
+      cluster = await connectCluster(config.redisUrl, logger);
+      logger.info({ redis: redactRedisUrl(config.redisUrl) }, 'in step with other processes through Redis');
+    }
   } catch (e) {
+    await mailer?.close().catch(() => undefined);
     await knex.destroy();
     throw e;
   }
 
   const tokens = createTokenService(config.jwtSecret);
-  const hub = createCollabHub({ knex, tokens, logger, config });
+  const hub = createCollabHub({ knex, tokens, logger, config, cluster });
   let selfUrl = '';
   const roomUpdates = hubUpdateSink(hub) ?? loopbackRoomSink({ knex, tokens, baseUrl: () => selfUrl });
   const app = createApp({

@@ -28,6 +28,7 @@ import { RoomEvents } from './room-events';
 import { RoomLogWriter } from './room-log';
 import { RoomRegistry } from './rooms';
 import { openSyncUpdateWriter } from './store';
+import type { Cluster } from './cluster';
 import { COLLAB_CLOSE } from '../../shared/collab/close-codes';
 
 export interface CollabHub {
@@ -55,6 +56,8 @@ export interface CollabDeps {
   tokens: TokenService;
   logger: Logger;
   config: Config;
+  /** Other processes serving the same rooms (Redis, `REDIS_URL`); closed with the hub. */
+  cluster?: Cluster | null;
 }
 
 export const COLLAB_PATH = '/collab/';
@@ -77,12 +80,23 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
   const syncWriter = openSyncUpdateWriter(knex);
   // eslint-disable-next-line prefer-const
   let registry: RoomRegistry;
-  events = new RoomEvents({ knex, tokens, logger, limits, roomLog, publicUrl: config.publicUrl, settleLog: (roomId) => registry.get(roomId)?.flushDescribe() });
+  const cluster = deps.cluster ?? null;
+  events = new RoomEvents({
+    knex,
+    tokens,
+    logger,
+    limits,
+    roomLog,
+    publicUrl: config.publicUrl,
+    settleLog: (roomId) => registry.get(roomId)?.flushDescribe(),
+    cluster,
+  });
   registry = new RoomRegistry({
     knex,
     logger,
     limits,
     syncWriter,
+    cluster,
     onChanges: (roomId, userId, changes) => roomLog.record(roomId, userId, changes),
   });
   // The hard cap sits above the per-message limit so that an oversized message gets a clear 4413.
@@ -209,6 +223,32 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
     }, 1000).unref();
   };
 
+  function forgetRoom(roomId: string): void {
+    const room = registry.get(roomId);
+    if (room) void registry.unload(room, { compact: false, closeCode: COLLAB_CLOSE.roomGone, closeReason: 'this room was deleted' });
+    roomLog.forgetRoom(roomId);
+  }
+
+  // What other processes tell this one: the same rules, applied to the sockets open here.
+  cluster?.onControl((message, from) => {
+    switch (message.type) {
+      case 'role':
+        registry.get(message.roomId)?.setRole(message.userId, message.role);
+        events.roleChangedElsewhere(message.roomId, message.userId, message.role);
+        return;
+      case 'room-deleted':
+        forgetRoom(message.roomId);
+        events.roomDeletedElsewhere(message.roomId);
+        return;
+      default:
+        events.fromCluster(message, from);
+    }
+  });
+  cluster?.onResync(() => {
+    for (const room of registry.all())
+      room.catchUp().catch((e: unknown) => logger.warn({ roomId: room.id, err: e }, 'could not re-read a room after a Redis outage'));
+  });
+
   return {
     attach(httpServer) {
       if (server) throw new Error('the collab hub is already attached');
@@ -220,13 +260,13 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
     roleChanged(roomId, userId, role) {
       registry.get(roomId)?.setRole(userId, role);
       events.roleChanged(roomId, userId, role);
+      cluster?.publish({ type: 'role', roomId, userId, role });
     },
 
     roomDeleted(roomId) {
-      const room = registry.get(roomId);
-      if (room) void registry.unload(room, { compact: false, closeCode: COLLAB_CLOSE.roomGone, closeReason: 'this room was deleted' });
-      roomLog.forgetRoom(roomId);
+      forgetRoom(roomId);
       events.roomDeleted(roomId);
+      cluster?.publish({ type: 'room-deleted', roomId });
     },
 
     emit(roomId, event, payload) {
@@ -264,6 +304,7 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
       await registry.closeAll();
       for (const c of connections) c.terminate();
       await roomLog.flush();
+      await cluster?.close();
       syncWriter?.close();
       await new Promise<void>((resolve) => wss.close(() => resolve()));
       server = null;

@@ -17,6 +17,7 @@ import { getRole } from '../rooms/membership';
 import { identifyUser, type Identity } from './auth';
 import type { CollabLimits } from './limits';
 import type { RoomLogWriter } from './room-log';
+import type { Cluster, ClusterMember, ClusterMessage } from './cluster';
 import {
   followPayloadSchema,
   joinPayloadSchema,
@@ -58,7 +59,14 @@ export interface RoomEventsDeps {
   publicUrl?: string;
   /** Settle the room's edits still waiting to be described, so that the history read next has them. */
   settleLog?: (roomId: string) => void;
+  /** Other processes (Redis): socket.io broadcasts through its adapter, presence and views through this. */
+  cluster?: Cluster | null;
 }
+
+/** Each process repeats its presence lists this often; another process's list not repeated in
+ * `PRESENCE_TTL_MS` is dropped (that process is gone). */
+const PRESENCE_REPEAT_MS = 10_000;
+const PRESENCE_TTL_MS = 35_000;
 
 export class RoomEvents {
   private io: Server | null = null;
@@ -66,6 +74,9 @@ export class RoomEvents {
   private readonly rooms = new Map<string, Map<string, Member>>();
   /** roomId -> userId -> that member's latest view */
   private readonly views = new Map<string, Map<string, ViewState>>();
+  /** roomId -> processId -> the members connected to that process (other processes only) */
+  private readonly remote = new Map<string, Map<string, { members: ClusterMember[]; at: number }>>();
+  private repeatTimer: NodeJS.Timeout | null = null;
 
   constructor(private readonly deps: RoomEventsDeps) {}
 
@@ -76,6 +87,7 @@ export class RoomEvents {
       maxHttpBufferSize: this.deps.limits.maxEventBytes,
       // The room socket at /collab shares the server's upgrade event; engine.io must leave it alone.
       destroyUpgrade: false,
+      ...(this.deps.cluster ? { adapter: this.deps.cluster.socketIoAdapter() } : {}),
     });
     io.use((socket, next) => {
       const h = socket.handshake;
@@ -103,6 +115,93 @@ export class RoomEvents {
     });
     io.on('connection', (socket) => this.onConnection(socket));
     this.io = io;
+    const cluster = this.deps.cluster;
+    if (cluster) {
+      cluster.publish({ type: 'presence-query' });
+      this.repeatTimer = setInterval(() => {
+        for (const roomId of this.rooms.keys()) this.publishPresence(roomId);
+        this.expireRemote();
+      }, PRESENCE_REPEAT_MS);
+      this.repeatTimer.unref();
+    }
+  }
+
+  // ---- other processes ----
+
+  /** A member's role changed on another process: apply it to the sockets here (the event itself came
+   * through the socket.io adapter). */
+  roleChangedElsewhere(roomId: string, userId: string, role: Role | null): void {
+    this.applyRole(roomId, userId, role);
+  }
+
+  roomDeletedElsewhere(roomId: string): void {
+    this.rooms.delete(roomId);
+    this.views.delete(roomId);
+    this.remote.delete(roomId);
+  }
+
+  fromCluster(message: ClusterMessage, from: string): void {
+    switch (message.type) {
+      case 'presence': {
+        let byProcess = this.remote.get(message.roomId);
+        if (!byProcess) this.remote.set(message.roomId, (byProcess = new Map()));
+        if (message.members.length === 0) byProcess.delete(from);
+        else byProcess.set(from, { members: message.members, at: Date.now() });
+        if (byProcess.size === 0) this.remote.delete(message.roomId);
+        this.emitPresenceHere(message.roomId);
+        return;
+      }
+      case 'presence-query':
+        for (const roomId of this.rooms.keys()) this.publishPresence(roomId);
+        return;
+      case 'view': {
+        let views = this.views.get(message.roomId);
+        if (!views) this.views.set(message.roomId, (views = new Map()));
+        views.set(message.userId, message.view);
+        this.sendViewHere(message.roomId, message.userId, message.view);
+        return;
+      }
+      default:
+        return;
+    }
+  }
+
+  private publishPresence(roomId: string): void {
+    const members = [...(this.rooms.get(roomId)?.values() ?? [])].map((m) => ({ ...m }));
+    this.deps.cluster?.publish({ type: 'presence', roomId, members });
+  }
+
+  private expireRemote(): void {
+    const now = Date.now();
+    for (const [roomId, byProcess] of this.remote) {
+      let changed = false;
+      for (const [pid, entry] of byProcess)
+        if (now - entry.at > PRESENCE_TTL_MS) {
+          byProcess.delete(pid);
+          changed = true;
+        }
+      if (byProcess.size === 0) this.remote.delete(roomId);
+      if (changed) this.emitPresenceHere(roomId);
+    }
+  }
+
+  private emitPresenceHere(roomId: string): void {
+    this.io?.local.to(roomKey(roomId)).emit(ROOM_EVENTS.presence, { roomId, members: this.presence(roomId) });
+  }
+
+  /** The members here and on the other processes (fresh lists only). */
+  private allMembers(roomId: string): Member[] {
+    const out = [...(this.rooms.get(roomId)?.values() ?? [])];
+    const now = Date.now();
+    for (const entry of this.remote.get(roomId)?.values() ?? []) if (now - entry.at <= PRESENCE_TTL_MS) out.push(...entry.members);
+    return out;
+  }
+
+  private sendViewHere(roomId: string, userId: string, view: ViewState): void {
+    const payload = { roomId, userId, view };
+    for (const m of this.rooms.get(roomId)?.values() ?? []) {
+      if (m.following === userId && m.userId !== userId) this.io?.sockets.sockets.get(m.socketId)?.emit(ROOM_EVENTS.view, payload);
+    }
   }
 
   emit(roomId: string, event: string, payload: unknown): void {
@@ -115,8 +214,13 @@ export class RoomEvents {
   }
 
   roleChanged(roomId: string, userId: string, role: Role | null): void {
-    const members = this.rooms.get(roomId);
     this.emit(roomId, ROOM_EVENTS.roleChanged, { roomId, userId, role });
+    this.applyRole(roomId, userId, role);
+  }
+
+  /** The role change on the sockets of this process. */
+  private applyRole(roomId: string, userId: string, role: Role | null): void {
+    const members = this.rooms.get(roomId);
     if (!members) return;
     for (const m of [...members.values()]) {
       if (m.userId !== userId) continue;
@@ -136,20 +240,24 @@ export class RoomEvents {
   roomDeleted(roomId: string): void {
     this.emit(roomId, ROOM_EVENTS.roomDeleted, { roomId });
     this.io?.in(roomKey(roomId)).socketsLeave(roomKey(roomId));
-    this.rooms.delete(roomId);
-    this.views.delete(roomId);
+    this.roomDeletedElsewhere(roomId);
   }
 
   async close(): Promise<void> {
     const io = this.io;
     this.io = null;
     if (!io) return;
-    io.disconnectSockets(true);
+    if (this.repeatTimer) clearInterval(this.repeatTimer);
+    this.repeatTimer = null;
+    // Tell the other processes that nobody is here any more.
+    for (const roomId of this.rooms.keys()) this.deps.cluster?.publish({ type: 'presence', roomId, members: [] });
+    io.local.disconnectSockets(true);
     // io.close() would also close the http server, which belongs to the caller.
     io.engine.close();
     io.removeAllListeners();
     this.rooms.clear();
     this.views.clear();
+    this.remote.clear();
   }
 
   // ---- per socket ----
@@ -212,7 +320,8 @@ export class RoomEvents {
     if (!members?.delete(socket.id)) return;
     if (members.size === 0) {
       this.rooms.delete(roomId);
-      this.views.delete(roomId);
+      if (this.remote.has(roomId)) this.publishPresence(roomId);
+      else this.views.delete(roomId);
       return;
     }
     this.broadcastPresence(roomId);
@@ -223,7 +332,7 @@ export class RoomEvents {
     if (!me) return failure('not-joined', 'join the room first');
     if (target !== null) {
       if (target === me.userId) return failure('bad-request', 'you cannot follow yourself');
-      const present = [...this.rooms.get(roomId)!.values()].some((m) => m.userId === target);
+      const present = this.allMembers(roomId).some((m) => m.userId === target);
       if (!present) return failure('not-present', 'that member is not in the room now');
     }
     me.following = target;
@@ -238,17 +347,15 @@ export class RoomEvents {
     let views = this.views.get(roomId);
     if (!views) this.views.set(roomId, (views = new Map()));
     views.set(me.userId, view);
-    const payload = { roomId, userId: me.userId, view };
-    for (const m of members.values()) {
-      if (m.following === me.userId && m.userId !== me.userId) this.io?.to(m.socketId).emit(ROOM_EVENTS.view, payload);
-    }
+    this.sendViewHere(roomId, me.userId, view);
+    this.deps.cluster?.publish({ type: 'view', roomId, userId: me.userId, view });
     return { ok: true };
   }
 
   /** One entry per person (several tabs count once), in order of arrival. */
   private presence(roomId: string): PresenceMember[] {
     const byUser = new Map<string, PresenceMember>();
-    for (const m of this.rooms.get(roomId)?.values() ?? []) {
+    for (const m of this.allMembers(roomId)) {
       const p = byUser.get(m.userId);
       if (p) {
         p.following ??= m.following;
@@ -259,8 +366,14 @@ export class RoomEvents {
     return [...byUser.values()];
   }
 
+  /** Everyone in the room gets the new list: here directly, on the other processes from their own. */
   private broadcastPresence(roomId: string): void {
-    this.emit(roomId, ROOM_EVENTS.presence, { roomId, members: this.presence(roomId) });
+    if (!this.deps.cluster) {
+      this.emit(roomId, ROOM_EVENTS.presence, { roomId, members: this.presence(roomId) });
+      return;
+    }
+    this.publishPresence(roomId);
+    this.emitPresenceHere(roomId);
   }
 }
 

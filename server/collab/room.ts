@@ -9,7 +9,8 @@ import * as Y from 'yjs';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import * as awarenessProtocol from 'y-protocols/awareness';
-import { appendUpdates, loadRoomDocument, saveRoomState, type SyncUpdateWriter } from './store';
+import { appendUpdates, compactRoomDocument, loadRoomDocument, saveRoomState, type SyncUpdateWriter } from './store';
+import type { Cluster, RoomMessageKind } from './cluster';
 import type { CollabConnection } from './connection';
 import { formatBytes, type CollabLimits } from './limits';
 import {
@@ -31,6 +32,8 @@ export interface RoomDeps {
   limits: CollabLimits;
   /** Appends synchronously (SQLite); without it every write takes the async Knex path. */
   syncWriter?: SyncUpdateWriter | null;
+  /** Other processes serving the same rooms (Redis); null for one process. */
+  cluster?: Cluster | null;
   /** Accepted changes, described, attributed to the member whose update made them. */
   onChanges?: (roomId: string, userId: string, changes: DesignChange[]) => void;
 }
@@ -58,6 +61,9 @@ export class RoomWriteError extends Error {
 
 /** The transaction origin of server-side edits on the live document (broadcast to every socket). */
 export const SERVER_ORIGIN = Symbol('matchloom-server-update');
+
+/** The transaction origin of updates another process stored and relayed (broadcast to every socket here). */
+export const CLUSTER_ORIGIN = Symbol('matchloom-cluster-update');
 
 /** How long after an edit its room log description is made (ms). */
 const DESCRIBE_DELAY_MS = 40;
@@ -121,6 +127,8 @@ export class Room {
   /** Whose edits since `lastSnapshot` are still to be described, and the timer that will. */
   private describeUser: string | null = null;
   private describeTimer: NodeJS.Timeout | null = null;
+  /** The document changed by another process's edit since `lastSnapshot` was read. */
+  private snapshotStale = false;
 
   private constructor(
     readonly id: string,
@@ -141,9 +149,59 @@ export class Room {
   }
 
   static async load(id: string, deps: RoomDeps, onIdle: (room: Room) => void): Promise<Room> {
-    const stored = await loadRoomDocument(deps.knex, id);
+    // With other processes: listen to the room first, then read it, so that no update stored elsewhere
+    // falls between the two (what arrives meanwhile is applied once the room exists; Yjs ignores repeats).
+    let room: Room | null = null;
+    const early: [RoomMessageKind, Uint8Array][] = [];
+    if (deps.cluster) await deps.cluster.joinRoom(id, (kind, bytes) => (room ? room.fromCluster(kind, bytes) : early.push([kind, bytes])));
+    let stored;
+    try {
+      stored = await loadRoomDocument(deps.knex, id);
+    } catch (e) {
+      deps.cluster?.leaveRoom(id);
+      throw e;
+    }
     if (stored.skippedUpdates > 0) deps.logger.warn({ roomId: id, skipped: stored.skippedUpdates }, 'skipped damaged room updates while loading');
-    return new Room(id, stored.doc, deps, stored, onIdle);
+    const loaded = new Room(id, stored.doc, deps, stored, onIdle);
+    room = loaded;
+    for (const [kind, bytes] of early) loaded.fromCluster(kind, bytes);
+    return loaded;
+  }
+
+  /** An update or presence change another process accepted for this room: apply it and pass it on. */
+  fromCluster(kind: RoomMessageKind, bytes: Uint8Array): void {
+    if (this.state !== 'open') return;
+    try {
+      if (kind === 'awareness') {
+        awarenessProtocol.applyAwarenessUpdate(this.awareness, bytes, CLUSTER_ORIGIN);
+        return;
+      }
+      // Edits made elsewhere are described there: settle ours, and re-read before describing the next.
+      if (this.describeUser !== null) this.flushDescribe();
+      Y.applyUpdate(this.doc, bytes, CLUSTER_ORIGIN);
+      this.snapshotStale = true;
+      this.approxBytes += bytes.byteLength;
+    } catch (e) {
+      this.deps.logger.warn({ roomId: this.id, kind, err: e }, 'a relayed room message could not be applied');
+    }
+  }
+
+  /**
+   * Re-read the room from the database and apply what this copy lacks (after a Redis outage, when
+   * relayed updates may have been missed).
+   */
+  async catchUp(): Promise<void> {
+    if (this.state !== 'open') return;
+    const stored = await loadRoomDocument(this.deps.knex, this.id);
+    try {
+      if (this.state !== 'open') return;
+      const missing = Y.encodeStateAsUpdate(stored.doc, Y.encodeStateVector(this.doc));
+      if (this.describeUser !== null) this.flushDescribe();
+      Y.applyUpdate(this.doc, missing, CLUSTER_ORIGIN);
+      this.snapshotStale = true;
+    } finally {
+      stored.doc.destroy();
+    }
   }
 
   // ---- lifetime ----
@@ -178,7 +236,10 @@ export class Room {
     if (!this.conns.delete(conn)) return;
     const owned = [...conn.awarenessClients].filter((id) => this.awarenessOwners.get(id) === conn);
     for (const id of owned) this.awarenessOwners.delete(id);
-    if (owned.length > 0 && this.state === 'open') awarenessProtocol.removeAwarenessStates(this.awareness, owned, null);
+    if (owned.length > 0 && this.state === 'open') {
+      awarenessProtocol.removeAwarenessStates(this.awareness, owned, null);
+      this.deps.cluster?.publishRoom(this.id, 'awareness', awarenessProtocol.encodeAwarenessUpdate(this.awareness, owned));
+    }
     this.release();
   }
 
@@ -199,6 +260,7 @@ export class Room {
     if (opts.compact) this.flushDescribe();
     else if (this.describeTimer) clearTimeout(this.describeTimer);
     if (opts.compact && this.sinceCompaction > 0) await this.compact();
+    this.deps.cluster?.leaveRoom(this.id);
     this.awareness.off('update', this.onAwarenessUpdate);
     this.awareness.destroy();
     this.doc.off('update', this.onDocUpdate);
@@ -281,6 +343,7 @@ export class Room {
       return;
     }
     awarenessProtocol.applyAwarenessUpdate(this.awareness, update, conn);
+    this.deps.cluster?.publishRoom(this.id, 'awareness', update);
     for (const e of entries) {
       const owner = this.awarenessOwners.get(e.clientId);
       if (e.state === null) {
@@ -401,8 +464,13 @@ export class Room {
       const w = batch[i];
       // The pending description belongs to whoever made the edits since the last one: settle it first.
       if (this.describeUser !== null && this.describeUser !== w.userId) this.flushDescribe();
+      if (this.snapshotStale) {
+        this.lastSnapshot = designSnapshot(this.doc);
+        this.snapshotStale = false;
+      }
       try {
         Y.applyUpdate(this.doc, w.update, w.conn ?? SERVER_ORIGIN);
+        this.deps.cluster?.publishRoom(this.id, 'update', w.update);
       } catch (e) {
         this.deps.logger.warn({ roomId: this.id, userId: w.userId, err: e }, 'a stored update could not be applied');
         w.conn?.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
@@ -466,8 +534,25 @@ export class Room {
     }
   }
 
+  /**
+   * With other processes writing the same room, this copy may lag what is stored (a relayed update still
+   * on its way), so the compacted state is made from the database alone (`compactRoomDocument`, which
+   * locks the room's state row on PostgreSQL).
+   */
+  private async compactFromStore(): Promise<boolean> {
+    try {
+      await compactRoomDocument(this.deps.knex, this.id);
+      this.sinceCompaction = 0;
+      return true;
+    } catch (e) {
+      this.deps.logger.warn({ roomId: this.id, err: e }, 'room compaction failed; will retry');
+      return false;
+    }
+  }
+
   /** Compact synchronously (SQLite); false when the database was busy (the async drain retries). */
   private compactNow(): boolean {
+    if (this.deps.cluster) return false; // from the store, on the async path
     const state = Y.encodeStateAsUpdate(this.doc);
     try {
       if (!this.deps.syncWriter!.saveState(this.id, state, this.lastUpdateId)) return false;
@@ -483,6 +568,7 @@ export class Room {
 
   /** Write the in-memory document as the compacted state (called only between writes). */
   private async compact(): Promise<boolean> {
+    if (this.deps.cluster) return this.compactFromStore();
     const state = Y.encodeStateAsUpdate(this.doc);
     try {
       if (!this.deps.syncWriter?.saveState(this.id, state, this.lastUpdateId)) await saveRoomState(this.deps.knex, this.id, state, this.lastUpdateId);

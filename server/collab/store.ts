@@ -10,6 +10,7 @@ import { Worker } from 'node:worker_threads';
 import Database from 'better-sqlite3';
 import type { Knex } from 'knex';
 import { createDesignDoc, readDesign } from '../../shared/collab/schema';
+import { isPostgres } from '../db';
 import { DesignError, type Design, type DesignInput } from '../../shared/rf/design';
 
 export interface StoredDoc {
@@ -20,6 +21,8 @@ export interface StoredDoc {
   pendingUpdates: number;
   /** log rows that could not be applied (damaged bytes) and were skipped. */
   skippedUpdates: number;
+  /** the ids of the log rows read. */
+  ids: number[];
 }
 
 function toUint8(b: Buffer | Uint8Array): Uint8Array {
@@ -69,18 +72,22 @@ export async function loadRoomDocument(knex: Knex | Knex.Transaction, roomId: st
   const state = await knex('room_states').where({ room_id: roomId }).first();
   const upto = state ? Number(state.upto_id) : 0;
   if (state) Y.applyUpdate(doc, toUint8(state.state));
-  const rows = await knex('room_updates').where({ room_id: roomId }).andWhere('id', '>', upto).orderBy('id', 'asc').select('id', 'update');
+  // Every row still in the log, not only those past `upto_id`: compaction deletes exactly the rows it
+  // merged, and on PostgreSQL a row may commit after a row with a larger id (two processes writing).
+  const rows = await knex('room_updates').where({ room_id: roomId }).orderBy('id', 'asc').select('id', 'update');
   let last = upto;
   let skipped = 0;
+  const ids: number[] = [];
   for (const r of rows) {
     try {
       Y.applyUpdate(doc, toUint8(r.update));
     } catch {
       skipped++; // damaged bytes: the rest of the log still loads
     }
-    last = Number(r.id);
+    ids.push(Number(r.id));
+    last = Math.max(last, Number(r.id));
   }
-  return { doc, lastUpdateId: last, pendingUpdates: rows.length, skippedUpdates: skipped };
+  return { doc, lastUpdateId: last, pendingUpdates: rows.length, skippedUpdates: skipped, ids };
 }
 
 /**
@@ -89,13 +96,17 @@ export async function loadRoomDocument(knex: Knex | Knex.Transaction, roomId: st
  */
 export async function compactRoomDocument(knex: Knex, roomId: string): Promise<void> {
   await knex.transaction(async (trx) => {
-    const { doc, lastUpdateId } = await loadRoomDocument(trx, roomId);
+    // Two processes compacting the same room one after the other, not interleaved (SQLite's write
+    // transactions are serial already).
+    if (isPostgres(knex)) await trx('room_states').where({ room_id: roomId }).forUpdate().first('room_id');
+    const { doc, lastUpdateId, ids } = await loadRoomDocument(trx, roomId);
     const state = Buffer.from(Y.encodeStateAsUpdate(doc));
     doc.destroy();
     const exists = await trx('room_states').where({ room_id: roomId }).first('room_id');
     if (exists) await trx('room_states').where({ room_id: roomId }).update({ state, upto_id: lastUpdateId, updated_at: Date.now() });
     else await trx('room_states').insert({ room_id: roomId, state, upto_id: lastUpdateId, updated_at: Date.now() });
-    await trx('room_updates').where({ room_id: roomId }).andWhere('id', '<=', lastUpdateId).delete();
+    // Exactly the rows merged: one that another process has not committed yet stays for the next time.
+    for (let i = 0; i < ids.length; i += 500) await trx('room_updates').whereIn('id', ids.slice(i, i + 500)).delete();
   });
 }
 
