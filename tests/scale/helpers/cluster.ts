@@ -69,6 +69,11 @@ export async function startProcess(label: string, databaseUrl: string): Promise<
   });
   let stderr = '';
   child.stderr!.on('data', (d) => (stderr += String(d)));
+  // SCALE_TEST_LOG=<pino level> shows the processes' logs (the fixture passes it on as LOG_LEVEL).
+  if (process.env.SCALE_TEST_LOG) {
+    child.stdout!.on('data', (d) => process.stderr.write(`[${label}] ${String(d)}`));
+    child.stderr!.on('data', (d) => process.stderr.write(`[${label}] ${String(d)}`));
+  }
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
   const port = await new Promise<number>((resolve, reject) => {
     const lines = createInterface({ input: child.stdout! });
