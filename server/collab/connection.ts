@@ -70,17 +70,18 @@ export class CollabConnection {
 
   close(code: number, reason: string): void {
     if (this.closed) return;
-    this.markClosed();
+    // The socket first: a failing close listener must not leave it open.
     try {
       this.ws.close(code, closeReason(reason));
     } catch {
       this.ws.terminate();
     }
+    this.markClosed();
   }
 
   terminate(): void {
-    this.markClosed();
     this.ws.terminate();
+    this.markClosed();
   }
 
   private markClosed(): void {

@@ -238,7 +238,9 @@ export class Room {
     for (const id of owned) this.awarenessOwners.delete(id);
     if (owned.length > 0 && this.state === 'open') {
       awarenessProtocol.removeAwarenessStates(this.awareness, owned, null);
-      this.deps.cluster?.publishRoom(this.id, 'awareness', awarenessProtocol.encodeAwarenessUpdate(this.awareness, owned));
+      // The other processes drop them too (a removal at the same clock is taken).
+      const known = owned.filter((id) => this.awareness.meta.has(id));
+      if (known.length > 0) this.deps.cluster?.publishRoom(this.id, 'awareness', awarenessProtocol.encodeAwarenessUpdate(this.awareness, known));
     }
     this.release();
   }
