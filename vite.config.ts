@@ -22,6 +22,13 @@ export default defineConfig({
   test: {
     root: '.',
     include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
+    // The PostgreSQL and several-process suites need servers of their own: scripts/pg-test.sh and
+    // scripts/scale-test.sh start them and set these variables.
+    exclude: [
+      '**/node_modules/**',
+      ...(process.env.DATABASE_URL ? [] : ['tests/pg/**']),
+      ...(process.env.DATABASE_URL && process.env.REDIS_URL ? [] : ['tests/scale/**']),
+    ],
     environment: 'node',
     pool: 'forks',
     maxWorkers: 2,
