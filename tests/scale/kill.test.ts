@@ -29,6 +29,14 @@ function holdsAll(doc: Y.Doc, seen: Uint8Array): void {
   merged.destroy();
 }
 
+/** The changes `from` has and `to` lacks, per Yjs client: `client: clock in to < clock in from`. */
+function missing(from: Y.Doc, to: Y.Doc): string[] {
+  const held = Y.decodeStateVector(Y.encodeStateVector(to));
+  return [...Y.decodeStateVector(Y.encodeStateVector(from))]
+    .filter(([client, clock]) => (held.get(client) ?? 0) < clock)
+    .map(([client, clock]) => `${client}: ${held.get(client) ?? 0} < ${clock}`);
+}
+
 describeScale(scaleTitle('one of two processes killed during a burst of edits'), () => {
   beforeAll(async () => {
     db = await freshDatabase('kill');
@@ -111,7 +119,13 @@ describeScale(scaleTitle('one of two processes killed during a burst of edits'),
     peers.push(onA, onB2);
     await Promise.all([onA.synced, onB2.synced]);
     holdsAll(onA.doc, seen);
-    await converged([onA, onB2, onB], 20_000);
+    try {
+      await converged([onA, onB2, onB], 20_000);
+    } catch (e) {
+      // Say which side lacks what (Yjs client: clock held < clock on the other side).
+      expect({ missingOnB: missing(onA.doc, onB2.doc), missingOnA: missing(onB2.doc, onA.doc) }).toEqual({ missingOnB: [], missingOnA: [] });
+      throw e;
+    }
     expect(docJson(onA.doc)).toBe(docJson(onB2.doc));
     const designOnB = await B.api.design(owner, roomId);
     await untilDesign('the design file on A to match B', A.api, owner, roomId, (d) => canonicalJson(d) === canonicalJson(designOnB));
