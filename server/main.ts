@@ -3,6 +3,7 @@
  * the room socket and socket.io. Used by start.ts, dev mode, the API tests and the browser tests.
  */
 import http from 'node:http';
+import type { Duplex } from 'node:stream';
 import type { AddressInfo } from 'node:net';
 import type { Knex } from 'knex';
 import type { Config } from './config';
@@ -96,6 +97,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     clientDir: options.clientDir === undefined ? DEFAULT_CLIENT_DIR : options.clientDir,
   });
   const httpServer = http.createServer(app);
+  httpServer.on('clientError', answerClientError);
   hub.attach(httpServer);
 
   try {
@@ -136,4 +138,26 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     })());
 
   return { url, port, httpServer, knex, close };
+}
+
+/**
+ * A request Node could not parse (a malformed request line, a raw non-ASCII path, headers over the size
+ * limit): answered in the API's error shape rather than Node's bare status line, then closed.
+ */
+function answerClientError(err: NodeJS.ErrnoException, socket: Duplex): void {
+  if (err.code === 'ECONNRESET' || !socket.writable) {
+    socket.destroy();
+    return;
+  }
+  const tooLarge = err.code === 'HPE_HEADER_OVERFLOW';
+  const status = tooLarge ? 431 : 400;
+  const body = JSON.stringify({
+    error: tooLarge
+      ? { code: 'headers-too-large', message: 'The request headers are too large.' }
+      : { code: 'bad-request', message: 'The request could not be read (malformed request line or headers).' },
+  });
+  socket.end(
+    `HTTP/1.1 ${status} ${http.STATUS_CODES[status]}\r\nContent-Type: application/json; charset=utf-8\r\n` +
+      `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+  );
 }
