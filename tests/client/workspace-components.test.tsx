@@ -231,6 +231,21 @@ describe('useRoomDesign', () => {
 
   it('does not call an empty document an error before it has synced', () => {
     const hook = renderHook(() => useRoomDesign(new Y.Doc(), false));
-    expect(hook.result.current).toEqual({ design: null, error: null });
+    expect(hook.result.current.design).toBeNull();
+    expect(hook.result.current.error).toBeNull();
+  });
+
+  it('tells its feed of each new design inside the document update, before React renders it', () => {
+    const doc = createDesignDoc(whipE12Design());
+    const hook = renderHook(() => useRoomDesign(doc, true));
+    const seen: number[] = [];
+    const stop = hook.result.current.feed.subscribe((d) => seen.push(d.elements[1].value as number));
+    setElementField(doc, 'c-shunt', 'value', 15e-12);
+    // no act(): the listener ran synchronously with the edit
+    expect(seen).toEqual([15e-12]);
+    stop();
+    act(() => setElementField(doc, 'c-shunt', 'value', 18e-12));
+    expect(seen).toEqual([15e-12]);
+    expect(hook.result.current.design?.elements[1]).toMatchObject({ value: 18e-12 });
   });
 });

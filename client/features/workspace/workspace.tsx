@@ -80,7 +80,7 @@ function isTextEntry(target: EventTarget | null): boolean {
 export default function Workspace({ roomId, role }: WorkspaceProps) {
   const { data: me } = useMe();
   const room = useRoomDoc(roomId);
-  const { design, error: docError } = useRoomDesign(room.doc, room.everSynced);
+  const { design, error: docError, feed: designFeed } = useRoomDesign(room.doc, room.everSynced);
   const events = useRoomEvents(roomId, me?.id ?? null);
   const currentRole: RoomRole | null = events.roleUpdate ? events.roleUpdate.role : role;
   const lostAccess = room.status === 'denied' || currentRole === null || events.deleted;
@@ -101,8 +101,8 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
     [me, currentRole, role],
   );
   const presence = usePresence(room.provider, presenceUser);
-  const analysis = useAnalysis(design);
   const client = getEngineClient();
+  const analysis = useAnalysis(design, client, designFeed);
 
   const [selected, setSelected] = useState<string | null>(null);
   const [tab, setTab] = useState<TabKey>('element');

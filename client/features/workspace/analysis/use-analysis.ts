@@ -4,15 +4,20 @@
  * Re-analyses whenever the design's content changes (a new object with the same content is not
  * re-analysed, so passing a freshly built design on every render is safe). Newest request wins; a
  * superseded one is never shown.
+ * With a `feed` (useRoomDesign's), each new design goes to the engine synchronously from the
+ * document update that produced it, not after React has rendered it; the render's design, being the
+ * same content, is then not requested again.
  * `error` is a sentence for the user (a DesignError message); while there is an error the last good
  * result stays available so the chart does not blank out.
  */
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { flushSync } from 'react-dom';
 import type { Design } from '../../../../shared/rf/design';
 import { engineErrorMessage, getEngineClient, type EngineClient } from './engine-client';
 import type { AnalysisResult, ImpedancePath } from './engine-types';
 import { markStage, noteResultSource } from './draw-marks';
 import { createLatestScheduler } from './latest-scheduler';
+import type { DesignFeed } from '../collab/use-room-design';
 
 export interface AnalysisState {
   result: AnalysisResult | null;
@@ -21,18 +26,50 @@ export interface AnalysisState {
   pending: boolean;
 }
 
-export function useAnalysis(design: Design | null, client: EngineClient = getEngineClient()): AnalysisState {
+export function useAnalysis(design: Design | null, client: EngineClient = getEngineClient(), feed?: DesignFeed): AnalysisState {
   const scheduler = useMemo(() => createLatestScheduler((d: Design) => client.analyze(d)), [client]);
   const [state, setState] = useState<AnalysisState>({ result: null, path: null, error: null, pending: false });
   const alive = useRef(true);
+  /** content of the newest design sent to the engine */
+  const sentKey = useRef<string | null>(null);
 
   useEffect(() => {
     alive.current = true;
     return () => {
       alive.current = false;
+      sentKey.current = null;
       scheduler.cancel();
     };
   }, [scheduler]);
+
+  /** Send `design` unless the same content went last; its result draws at once (not on a later task). */
+  const send = useCallback(
+    (design: Design, key: string) => {
+      if (key === sentKey.current) return;
+      sentKey.current = key;
+      markStage('requested', scheduler.issued + 1);
+      void scheduler.request(design).then((outcome) => {
+        if (outcome.status !== 'stale') markStage('analysed', outcome.seq);
+        if (!alive.current || outcome.status === 'stale') return;
+        const pending = scheduler.busy;
+        const next =
+          outcome.status === 'done'
+            ? (noteResultSource(outcome.value.result, outcome.seq, design),
+              () => setState({ result: outcome.value.result, path: outcome.value.path, error: null, pending }))
+            : () => setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending }));
+        flushSync(next);
+      });
+    },
+    [scheduler],
+  );
+
+  useEffect(() => {
+    if (!feed) return;
+    return feed.subscribe((d) => {
+      if (!alive.current) return;
+      send(d, JSON.stringify(d));
+    });
+  }, [feed, send]);
 
   // Content, not identity, decides whether to re-analyse.
   const key = useMemo(() => (design ? JSON.stringify(design) : ''), [design]);
@@ -43,21 +80,15 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
     const design = current.current;
     if (!design) {
       scheduler.cancel();
+      sentKey.current = null;
       setState({ result: null, path: null, error: null, pending: false });
       return;
     }
-    setState((s) => (s.pending ? s : { ...s, pending: true }));
-    markStage('requested', scheduler.issued + 1);
-    void scheduler.request(design).then((outcome) => {
-      if (outcome.status !== 'stale') markStage('analysed', outcome.seq);
-      if (!alive.current || outcome.status === 'stale') return;
-      const pending = scheduler.busy;
-      if (outcome.status === 'done') {
-        noteResultSource(outcome.value.result, outcome.seq, design);
-        setState({ result: outcome.value.result, path: outcome.value.path, error: null, pending });
-      } else setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending }));
-    });
-  }, [key, scheduler]);
+    send(design, key);
+    // (a request sent from the feed may have delivered already)
+    const pending = scheduler.busy;
+    setState((s) => (s.pending === pending ? s : { ...s, pending }));
+  }, [key, scheduler, send]);
 
   return state;
 }

@@ -59,18 +59,12 @@ function ChainCanvasView(props: ChainCanvasProps) {
   latest.current = props;
   const drag = useRef<TuneDrag | null>(null);
 
-  // Vertical value drags follow the pointer outside the canvas too. Moves are coalesced: the newest
-  // one is applied once per animation frame (and at once on release), so a burst of pointer events
-  // makes one document edit, not one each.
+  // Vertical value drags follow the pointer outside the canvas too. Each move is applied at once
+  // (the live analysis drops superseded requests itself), so the chart follows without a frame's wait.
   useEffect(() => {
-    let pending: { clientY: number; shiftKey: boolean; altKey: boolean } | null = null;
-    let frame = 0;
-    const apply = () => {
-      frame = 0;
+    const apply = (ev: { clientY: number; shiftKey: boolean; altKey: boolean }) => {
       const d = drag.current;
-      const ev = pending;
-      pending = null;
-      if (!d || !ev) return;
+      if (!d) return;
       const p = latest.current;
       const el = p.design.elements.find((e) => e.id === d.id);
       const t = el ? tunableOf(el) : null;
@@ -82,21 +76,15 @@ function ChainCanvasView(props: ChainCanvasProps) {
       });
       if (next !== t.current) p.onTune(d.id, t.field, t.fieldValue(next));
     };
-    const move = (ev: PointerEvent) => {
-      if (!drag.current) return;
-      pending = { clientY: ev.clientY, shiftKey: ev.shiftKey, altKey: ev.altKey };
-      if (!frame) frame = requestAnimationFrame(apply);
-    };
-    const up = () => {
-      if (frame) cancelAnimationFrame(frame);
-      apply();
+    const move = (ev: PointerEvent) => apply(ev);
+    const up = (ev: PointerEvent) => {
+      apply(ev);
       drag.current = null;
       document.body.style.cursor = '';
     };
     window.addEventListener('pointermove', move);
     window.addEventListener('pointerup', up);
     return () => {
-      if (frame) cancelAnimationFrame(frame);
       window.removeEventListener('pointermove', move);
       window.removeEventListener('pointerup', up);
     };

@@ -3,7 +3,7 @@
  * that does not parse keeps the last good design on screen and reports the reason (the JSON path
  * and what is wrong) for a banner.
  */
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import type * as Y from 'yjs';
 import { readDesign, readDesignInput } from '../../../../shared/collab/schema';
 import { DesignError, type Design } from '../../../../shared/rf/design';
@@ -12,6 +12,16 @@ export interface RoomDesignState {
   design: Design | null;
   /** why the document does not read as a design right now (null when it does) */
   error: string | null;
+}
+
+/** Listeners told of each new design synchronously, inside the document update (before React renders it). */
+export interface DesignFeed {
+  subscribe(listener: (design: Design) => void): () => void;
+}
+
+export interface RoomDesign extends RoomDesignState {
+  /** the same designs as `design`, delivered at once: live analysis starts from here, not after a render */
+  feed: DesignFeed;
 }
 
 export type DesignReading = { ok: true; design: Design } | { ok: false; message: string };
@@ -71,8 +81,18 @@ export function shareUnchanged(prev: Design | null, next: Design): Design {
  * `ready` says the document holds the room's content (it has synced once); before that an empty
  * document is not an error.
  */
-export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesignState {
+export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
   const [state, setState] = useState<RoomDesignState>({ design: null, error: null });
+  const listeners = useMemo(() => new Set<(design: Design) => void>(), []);
+  const feed = useMemo<DesignFeed>(
+    () => ({
+      subscribe(listener) {
+        listeners.add(listener);
+        return () => listeners.delete(listener);
+      },
+    }),
+    [listeners],
+  );
 
   useEffect(() => {
     if (!doc) {
@@ -82,13 +102,17 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesignStat
     // One reading per document update; an unchanged document is not re-validated, and a new design
     // keeps the previous one's unchanged parts (same objects), so memoised views of them skip work.
     let lastKey: string | null = null;
+    let last: Design | null = null;
     const refresh = () => {
       const key = inputKey(doc);
       if (key !== null && key === lastKey) return;
       const reading = readRoomDesign(doc);
       if (reading.ok) {
         lastKey = key;
-        setState((s) => ({ design: shareUnchanged(s.design, reading.design), error: null }));
+        const design = shareUnchanged(last, reading.design);
+        last = design;
+        for (const listener of listeners) listener(design);
+        setState({ design, error: null });
       } else {
         lastKey = null;
         if (ready) setState((s) => ({ design: s.design, error: reading.message }));
@@ -99,7 +123,7 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesignStat
     return () => {
       doc.off('update', refresh);
     };
-  }, [doc, ready]);
+  }, [doc, ready, listeners]);
 
-  return state;
+  return useMemo(() => ({ ...state, feed }), [state, feed]);
 }

@@ -6,7 +6,7 @@
  * Drag across the plot to zoom in on frequency; double-click to zoom back out. Types from
  * ../analysis/engine-types.
  */
-import { memo, useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { Design } from '../../../../shared/rf/design';
@@ -200,7 +200,7 @@ function SweepPlotView(props: SweepPlotProps) {
   const key = shapeKey(model);
 
   // (Re)create uPlot when the series layout changes.
-  useEffect(() => {
+  useLayoutEffect(() => {
     const el = holder.current;
     if (!el) return;
     const u = new uPlot(
@@ -216,9 +216,10 @@ function SweepPlotView(props: SweepPlotProps) {
     // width/height are applied by the resize effect; only the shape recreates the plot
   }, [key]);
 
-  // New data: keep the user's frequency zoom when the sweep is unchanged.
+  // New data: keep the user's frequency zoom when the sweep is unchanged. Drawn in the commit that
+  // brings the result (like the chart), not after the next paint.
   const prevX = useRef<{ n: number; a: number; b: number } | null>(null);
-  useEffect(() => {
+  useLayoutEffect(() => {
     const u = plot.current;
     if (!u) return;
     const x = model.x;
