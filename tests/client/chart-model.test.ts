@@ -191,6 +191,29 @@ describe('buildTraceModel', () => {
     expect(m.cursors[0].y).toBeCloseTo(f.cy + 0.25 * f.radius, 9);
   });
 
+  it('marks each other person’s selected element on its own stage of the path, in their colour', () => {
+    const m = buildTraceModel({
+      width: W,
+      height: H,
+      design,
+      result,
+      path,
+      peerSelections: [
+        { userId: 'u1', name: 'Tuner', color: '#1d8a84', elementId: 'l1' },
+        { userId: 'u2', name: 'Watcher', color: '#7a4fc2', elementId: 'c1' },
+        { userId: 'u3', name: 'Stale', color: '#000000', elementId: 'gone' },
+      ],
+    });
+    expect(m.peerSelections.map((p) => [p.userId, p.elementId, p.colour])).toEqual([
+      ['u1', 'l1', '#1d8a84'],
+      ['u2', 'c1', '#7a4fc2'],
+    ]);
+    // the very pixels of that element's segment, not another stage's
+    expect(m.peerSelections[0].points).toEqual(m.path.find((s) => s.elementId === 'l1')!.points);
+    expect(m.peerSelections[1].points).toEqual(m.path.find((s) => s.elementId === 'c1')!.points);
+    expect(buildTraceModel({ width: W, height: H, design, result, path }).peerSelections).toEqual([]);
+  });
+
   it('draws compare and preview overlays and the yield envelope as a closed band', () => {
     const other = engineCore.analyze(chipAntennaDesign({ elements: [] }));
     const n = result.frequenciesHz.length;

@@ -239,7 +239,7 @@ describe('useRoomDesign', () => {
     const doc = createDesignDoc(whipE12Design());
     const hook = renderHook(() => useRoomDesign(doc, true));
     const seen: number[] = [];
-    const stop = hook.result.current.feed.subscribe((d) => seen.push(d.elements[1].value as number));
+    const stop = hook.result.current.feed.subscribe((d) => seen.push((d.elements[1] as { value: number }).value));
     setElementField(doc, 'c-shunt', 'value', 15e-12);
     // no act(): the listener ran synchronously with the edit
     expect(seen).toEqual([15e-12]);

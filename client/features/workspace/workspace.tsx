@@ -23,7 +23,7 @@ import { CANVAS_HEIGHT } from './chain/chain-layout';
 import { elementName } from './chain/element-catalog';
 import { elementDescription } from './chain/element-summary';
 import { ElementPalette, StepSeriesSelect } from './chain/element-palette';
-import { SmithChart, type ChartCursor } from './chart/smith-chart';
+import { SmithChart, type ChartCursor, type ChartPeerSelection } from './chart/smith-chart';
 import { DEFAULT_VIEW, type ChartView } from './chart/geometry';
 import type { PresenceUser } from './collab/presence-state';
 import { useDesignEdits } from './collab/use-design-edits';
@@ -266,6 +266,13 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
         p.cursor?.area === 'chart'
           ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, gamma: p.cursor.gamma }]
           : [],
+      ),
+    [presence.peers],
+  );
+  const peerSelections = useMemo<ChartPeerSelection[]>(
+    () =>
+      presence.peers.flatMap((p) =>
+        p.selection ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, elementId: p.selection }] : [],
       ),
     [presence.peers],
   );
@@ -535,6 +542,7 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
                 envelope={envelope}
                 preview={preview}
                 cursors={cursors}
+                peerSelections={peerSelections}
                 onCursorMove={onChartCursor}
                 view={view}
                 onViewChange={viewByUser}

@@ -31,6 +31,13 @@ export interface ChartCursor {
   gamma: [number, number];
 }
 
+export interface ChartPeerSelection {
+  userId: string;
+  name: string;
+  color: string;
+  elementId: string;
+}
+
 export interface SmithChartProps {
   width: number;
   height: number;
@@ -48,6 +55,8 @@ export interface SmithChartProps {
   /** match-finder candidate preview */
   preview?: { result: AnalysisResult; path: ImpedancePath | null } | null;
   cursors?: ChartCursor[];
+  /** other people's selected elements: their stage of the impedance path is marked in their colour */
+  peerSelections?: ChartPeerSelection[];
   onCursorMove?: (gamma: [number, number] | null) => void;
   view?: { zoom: number; cx: number; cy: number };
   onViewChange?: (v: { zoom: number; cx: number; cy: number }) => void;
@@ -103,9 +112,10 @@ function SmithChartView(props: SmithChartProps) {
         compare: props.compare,
         preview: props.preview,
         cursors: props.cursors,
+        peerSelections: props.peerSelections,
       }),
     // the design matters only through z0, band and goal: a tuned value alone waits for its result
-    [width, height, view.zoom, view.cx, view.cy, drawingKeyOf(design), result, path, props.selectedElementId, props.envelope, props.compare, props.preview, cursorsKeyOf(props.cursors)],
+    [width, height, view.zoom, view.cx, view.cy, drawingKeyOf(design), result, path, props.selectedElementId, props.envelope, props.compare, props.preview, cursorsKeyOf(props.cursors), peerSelectionsKeyOf(props.peerSelections)],
   );
 
   const gridGroup = useRef<Konva.Group>(null);
@@ -292,6 +302,10 @@ function cursorsKeyOf(cursors: ChartCursor[] | undefined): string {
   return (cursors ?? []).map((c) => `${c.userId}:${c.name}:${c.color}:${c.gamma[0]}:${c.gamma[1]}`).join('|');
 }
 
+function peerSelectionsKeyOf(sel: ChartPeerSelection[] | undefined): string {
+  return (sel ?? []).map((p) => `${p.userId}:${p.name}:${p.color}:${p.elementId}`).join('|');
+}
+
 // ---- grid ----------------------------------------------------------------------------------
 
 /** Cache the grid as one bitmap of the canvas's own size (zoomed in, its circles reach far beyond it). */
@@ -378,6 +392,17 @@ function TraceShapes({ model }: { model: TraceModel }) {
     );
     shapes.push(<Line key="tin" points={model.trace.inBand} stroke={CHART_PALETTE.trace} strokeWidth={4.5} lineCap="round" lineJoin="round" />);
   }
+  // other people's selections: a halo in each person's colour (several on one stage nest, widest below)
+  const peersOn = new Map<string, number>();
+  const halos = model.peerSelections.map((p) => {
+    const n = peersOn.get(p.elementId) ?? 0;
+    peersOn.set(p.elementId, n + 1);
+    return { p, width: 14 + 5 * n };
+  });
+  for (const { p, width } of halos.sort((a, b) => b.width - a.width))
+    shapes.push(
+      <Line key={`peer-${p.userId}-${p.elementId}`} points={p.points} stroke={p.colour} strokeWidth={width} opacity={0.45} lineCap="round" lineJoin="round" />,
+    );
   for (const s of model.path) {
     if (s.selected) shapes.push(<Line key={`sel-${s.elementId}`} points={s.points} stroke={CHART_PALETTE.selection} strokeWidth={10} lineCap="round" lineJoin="round" />);
     shapes.push(<Line key={`seg-${s.elementId}`} points={s.points} stroke={s.colour} strokeWidth={2.6} lineCap="round" lineJoin="round" />);

@@ -56,6 +56,15 @@ export interface CursorMark {
   y: number;
 }
 
+/** Another person's selected element: its stage of the impedance path, in their presence colour. */
+export interface PeerSelectionMark {
+  elementId: string;
+  userId: string;
+  name: string;
+  colour: string;
+  points: number[];
+}
+
 export interface TraceModel {
   frame: Frame;
   goal: { x: number; y: number; r: number; gamma: number } | null;
@@ -67,6 +76,7 @@ export interface TraceModel {
   compare: Overlay | null;
   preview: Overlay | null;
   cursors: CursorMark[];
+  peerSelections: PeerSelectionMark[];
   /** for hit testing: pixel positions (interleaved) of every sweep point and their frequencies */
   hit: { pixels: Float64Array; hz: Float64Array } | null;
 }
@@ -83,6 +93,8 @@ export interface TraceInput {
   compare?: { result: AnalysisResult; path: ImpedancePath | null; label: string } | null;
   preview?: { result: AnalysisResult; path: ImpedancePath | null } | null;
   cursors?: { userId: string; name: string; color: string; gamma: [number, number] }[];
+  /** other people's selections (element ids), drawn on their stage of the path */
+  peerSelections?: { userId: string; name: string; color: string; elementId: string }[];
 }
 
 /** Reference impedance of the chart: the design's referenceOhms (50 Ω when there is no design yet). */
@@ -273,6 +285,13 @@ export function buildTraceModel(input: TraceInput): TraceModel {
       return { userId: c.userId, name: c.name, colour: c.color, x, y };
     });
 
+  const peerSelections: PeerSelectionMark[] = (input.peerSelections ?? []).flatMap((p) => {
+    const stroke = strokes.find((st) => st.elementId === p.elementId);
+    return stroke && stroke.points.length >= 4
+      ? [{ elementId: p.elementId, userId: p.userId, name: p.name, colour: p.color, points: stroke.points }]
+      : [];
+  });
+
   return {
     frame: f,
     goal,
@@ -284,6 +303,7 @@ export function buildTraceModel(input: TraceInput): TraceModel {
     compare: input.compare ? overlay(input.compare.result, input.compare.path, input.compare.label, design, f) : null,
     preview: input.preview ? overlay(input.preview.result, input.preview.path, 'preview', design, f) : null,
     cursors,
+    peerSelections,
     hit,
   };
 }
