@@ -30,11 +30,11 @@ function holdsAll(doc: Y.Doc, seen: Uint8Array): void {
 }
 
 /** The changes `from` has and `to` lacks, per Yjs client: `client: clock in to < clock in from`. */
-function missing(from: Y.Doc, to: Y.Doc): string[] {
+function missing(from: Y.Doc, to: Y.Doc, names: Map<number, string>): string[] {
   const held = Y.decodeStateVector(Y.encodeStateVector(to));
   return [...Y.decodeStateVector(Y.encodeStateVector(from))]
     .filter(([client, clock]) => (held.get(client) ?? 0) < clock)
-    .map(([client, clock]) => `${client}: ${held.get(client) ?? 0} < ${clock}`);
+    .map(([client, clock]) => `${names.get(client) ?? client}: ${held.get(client) ?? 0} < ${clock}`);
 }
 
 describeScale(scaleTitle('one of two processes killed during a burst of edits'), () => {
@@ -98,6 +98,10 @@ describeScale(scaleTitle('one of two processes killed during a burst of edits'),
     Y.applyUpdate(seenDoc, seen);
     const seenIds = readDesignInput(seenDoc).elements!.map((e) => e.id);
     expect(seenIds.length).toBeGreaterThan(1);
+    const names = new Map([
+      [a.doc.clientID, 'the editor on A'],
+      [b.doc.clientID, 'the editor on B'],
+    ]);
     a.destroy();
     b.destroy();
     watcher.destroy();
@@ -123,7 +127,7 @@ describeScale(scaleTitle('one of two processes killed during a burst of edits'),
       await converged([onA, onB2, onB], 20_000);
     } catch (e) {
       // Say which side lacks what (Yjs client: clock held < clock on the other side).
-      expect({ missingOnB: missing(onA.doc, onB2.doc), missingOnA: missing(onB2.doc, onA.doc) }).toEqual({ missingOnB: [], missingOnA: [] });
+      expect({ missingOnB: missing(onA.doc, onB2.doc, names), missingOnA: missing(onB2.doc, onA.doc, names) }).toEqual({ missingOnB: [], missingOnA: [] });
       throw e;
     }
     expect(docJson(onA.doc)).toBe(docJson(onB2.doc));
