@@ -72,10 +72,9 @@ type RoomState = 'open' | 'closing' | 'closed';
 
 /** True when applying the update would change nothing (every struct known, every deletion done). */
 export function updateIsRedundant(doc: Y.Doc, decoded: ReturnType<typeof Y.decodeUpdate>): boolean {
-  const sv = Y.decodeStateVector(Y.encodeStateVector(doc));
   for (const s of decoded.structs) {
     if (s instanceof Y.Skip) continue;
-    if ((sv.get(s.id.client) ?? 0) < s.id.clock + s.length) return false;
+    if (Y.getState(doc.store, s.id.client) < s.id.clock + s.length) return false;
   }
   if (decoded.ds.clients.size === 0) return true;
   const have = Y.createDeleteSetFromStructStore(doc.store);
