@@ -17,7 +17,12 @@ import { paths } from '../../config/paths';
 import { queryKeys } from '../../lib/query-keys';
 import { useMe } from '../auth/api/get-me';
 import { getEngineClient } from './analysis/engine-client';
-import { useAnalysis } from './analysis/use-analysis';
+import {
+  useAnalysisState,
+  useAnalysisStore,
+  type AnalysisState,
+  type AnalysisStore,
+} from './analysis/use-analysis';
 import { ChainCanvas } from './chain/chain-canvas';
 import { CANVAS_HEIGHT } from './chain/chain-layout';
 import { elementName } from './chain/element-catalog';
@@ -102,7 +107,8 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   );
   const presence = usePresence(room.provider, presenceUser);
   const client = getEngineClient();
-  const analysis = useAnalysis(design, client, designFeed);
+  // The workspace itself does not re-render for a result: only the views below that read the store.
+  const analysis = useAnalysisStore(design, client, designFeed);
 
   const [selected, setSelected] = useState<string | null>(null);
   const [tab, setTab] = useState<TabKey>('element');
@@ -272,7 +278,9 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
   const peerSelections = useMemo<ChartPeerSelection[]>(
     () =>
       presence.peers.flatMap((p) =>
-        p.selection ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, elementId: p.selection }] : [],
+        p.selection
+          ? [{ userId: p.user.id, name: p.user.name, color: p.user.color, elementId: p.selection }]
+          : [],
       ),
     [presence.peers],
   );
@@ -371,7 +379,11 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
             <PortForm design={design} editable={editable} onApply={edits.applyPatch} />
           </div>
         ),
-        figures: <FiguresPanel design={design} result={analysis.result} error={analysis.error} />,
+        figures: (
+          <WithAnalysis store={analysis}>
+            {(a) => <FiguresPanel design={design} result={a.result} error={a.error} />}
+          </WithAnalysis>
+        ),
         finder: (
           <MatchFinderPanel
             design={design}
@@ -510,19 +522,25 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
         <PresenceAvatars rows={rows} />
       </div>
 
-      <WorkspaceBanners
-        lostAccess={lostAccess}
-        deleted={events.deleted}
-        status={room.status}
-        everSynced={room.everSynced}
-        docError={docError}
-        analysisError={analysis.error}
-        hasDesign={design !== null}
-      />
+      <WithAnalysis store={analysis}>
+        {(a) => (
+          <WorkspaceBanners
+            lostAccess={lostAccess}
+            deleted={events.deleted}
+            status={room.status}
+            everSynced={room.everSynced}
+            docError={docError}
+            analysisError={a.error}
+            hasDesign={design !== null}
+          />
+        )}
+      </WithAnalysis>
 
       {design && (
         <div className="border-b border-rule bg-paper/60 px-3 py-1.5">
-          <FiguresSummary design={design} result={analysis.result} pending={analysis.pending} />
+          <WithAnalysis store={analysis}>
+            {(a) => <FiguresSummary design={design} result={a.result} pending={a.pending} />}
+          </WithAnalysis>
         </div>
       )}
 
@@ -531,22 +549,26 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
         <div ref={mainBox} className="flex min-w-0 flex-1 p-2">
           <div className="shrink-0" style={{ width: chartSide }} data-testid="chart-pane">
             {design && mainSize.width > 0 && (
-              <SmithChart
-                width={chartSide}
-                height={chartHeight}
-                design={design}
-                result={analysis.result}
-                path={analysis.path}
-                selectedElementId={selectedId}
-                onSelectElement={selectByUser}
-                envelope={envelope}
-                preview={preview}
-                cursors={cursors}
-                peerSelections={peerSelections}
-                onCursorMove={onChartCursor}
-                view={view}
-                onViewChange={viewByUser}
-              />
+              <WithAnalysis store={analysis}>
+                {(a) => (
+                  <SmithChart
+                    width={chartSide}
+                    height={chartHeight}
+                    design={design}
+                    result={a.result}
+                    path={a.path}
+                    selectedElementId={selectedId}
+                    onSelectElement={selectByUser}
+                    envelope={envelope}
+                    preview={preview}
+                    cursors={cursors}
+                    peerSelections={peerSelections}
+                    onCursorMove={onChartCursor}
+                    view={view}
+                    onViewChange={viewByUser}
+                  />
+                )}
+              </WithAnalysis>
             )}
           </div>
           <SplitHandle
@@ -574,14 +596,18 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
             <div ref={plotBox} className="relative min-h-0 flex-1 overflow-hidden" data-testid="plot-pane">
               {design && plotSize.width > 0 && (
                 <div className="absolute inset-0">
-                  <SweepPlot
-                    width={Math.max(160, plotSize.width)}
-                    height={Math.max(120, plotSize.height)}
-                    design={design}
-                    result={analysis.result}
-                    mode={plotMode}
-                    envelope={envelope}
-                  />
+                  <WithAnalysis store={analysis}>
+                    {(a) => (
+                      <SweepPlot
+                        width={Math.max(160, plotSize.width)}
+                        height={Math.max(120, plotSize.height)}
+                        design={design}
+                        result={a.result}
+                        mode={plotMode}
+                        envelope={envelope}
+                      />
+                    )}
+                  </WithAnalysis>
                 </div>
               )}
             </div>
@@ -650,6 +676,17 @@ export default function Workspace({ roomId, role }: WorkspaceProps) {
       </div>
     </div>
   );
+}
+
+/** The newest analysis for the views that draw it: a result re-renders these, not the workspace. */
+function WithAnalysis({
+  store,
+  children,
+}: {
+  store: AnalysisStore;
+  children: (a: AnalysisState) => ReactNode;
+}) {
+  return <>{children(useAnalysisState(store))}</>;
 }
 
 /** Renders its children while active; while inactive (and staying so) it skips re-rendering. */

@@ -10,7 +10,7 @@
  * `error` is a sentence for the user (a DesignError message); while there is an error the last good
  * result stays available so the chart does not blank out.
  */
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useSyncExternalStore } from 'react';
 import { flushSync } from 'react-dom';
 import type { Design } from '../../../../shared/rf/design';
 import { engineErrorMessage, getEngineClient, type EngineClient } from './engine-client';
@@ -26,9 +26,49 @@ export interface AnalysisState {
   pending: boolean;
 }
 
+/** The newest analysis state, readable by any component without re-rendering the screen around it. */
+export interface AnalysisStore {
+  get(): AnalysisState;
+  subscribe(listener: () => void): () => void;
+}
+
+const IDLE: AnalysisState = { result: null, path: null, error: null, pending: false };
+
+function createAnalysisStore(): AnalysisStore & { set(next: AnalysisState | ((s: AnalysisState) => AnalysisState)): void } {
+  let state = IDLE;
+  const listeners = new Set<() => void>();
+  return {
+    get: () => state,
+    subscribe(listener) {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+    set(next) {
+      const value = typeof next === 'function' ? next(state) : next;
+      if (value === state) return;
+      state = value;
+      for (const l of listeners) l();
+    },
+  };
+}
+
+/** The store's state in a component (re-renders that component only when it changes). */
+export function useAnalysisState(store: AnalysisStore): AnalysisState {
+  return useSyncExternalStore(store.subscribe, store.get, store.get);
+}
+
 export function useAnalysis(design: Design | null, client: EngineClient = getEngineClient(), feed?: DesignFeed): AnalysisState {
+  return useAnalysisState(useAnalysisStore(design, client, feed));
+}
+
+/**
+ * Runs the live analysis like useAnalysis but does not subscribe the calling component: the
+ * workspace hands the store to the chart, the plot and the figures, so a result re-renders only them.
+ */
+export function useAnalysisStore(design: Design | null, client: EngineClient = getEngineClient(), feed?: DesignFeed): AnalysisStore {
   const scheduler = useMemo(() => createLatestScheduler((d: Design) => client.analyze(d)), [client]);
-  const [state, setState] = useState<AnalysisState>({ result: null, path: null, error: null, pending: false });
+  const store = useMemo(() => createAnalysisStore(), []);
+  const setState = store.set;
   const alive = useRef(true);
   /** content of the newest design sent to the engine */
   const sentKey = useRef<string | null>(null);
@@ -52,15 +92,13 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
         if (outcome.status !== 'stale') markStage('analysed', outcome.seq);
         if (!alive.current || outcome.status === 'stale') return;
         const pending = scheduler.busy;
-        const next =
-          outcome.status === 'done'
-            ? (noteResultSource(outcome.value.result, outcome.seq, design),
-              () => setState({ result: outcome.value.result, path: outcome.value.path, error: null, pending }))
-            : () => setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending }));
-        flushSync(next);
+        if (outcome.status === 'done') {
+          noteResultSource(outcome.value.result, outcome.seq, design);
+          flushSync(() => setState({ result: outcome.value.result, path: outcome.value.path, error: null, pending }));
+        } else flushSync(() => setState((s) => ({ ...s, error: engineErrorMessage(outcome.error), pending })));
       });
     },
-    [scheduler],
+    [scheduler, setState],
   );
 
   useEffect(() => {
@@ -81,14 +119,14 @@ export function useAnalysis(design: Design | null, client: EngineClient = getEng
     if (!design) {
       scheduler.cancel();
       sentKey.current = null;
-      setState({ result: null, path: null, error: null, pending: false });
+      setState(IDLE);
       return;
     }
     send(design, key);
     // (a request sent from the feed may have delivered already)
     const pending = scheduler.busy;
     setState((s) => (s.pending === pending ? s : { ...s, pending }));
-  }, [key, scheduler, send]);
+  }, [key, scheduler, send, setState]);
 
-  return state;
+  return store;
 }
