@@ -110,7 +110,7 @@ export async function stopAll(): Promise<void> {
   );
 }
 
-/** A socket.io client of one process, recording the room events it receives. */
+/** A socket.io client of one process, keeping the room events it receives. */
 export interface EventClient {
   socket: Socket;
   presence: PresencePayload[];
