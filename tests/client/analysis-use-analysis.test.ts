@@ -28,7 +28,35 @@ function fakeClient() {
 const tagOf = (r: AnalysisResult | null) => (r as unknown as { tag: string } | null)?.tag ?? null;
 const named = (name: string) => chipAntennaDesign({ name });
 
+/** A design feed the test drives, like useRoomDesign's. */
+function testFeed() {
+  const listeners = new Set<(d: Design) => void>();
+  return {
+    feed: {
+      subscribe(l: (d: Design) => void) {
+        listeners.add(l);
+        return () => listeners.delete(l);
+      },
+    },
+    emit: (d: Design) => listeners.forEach((l) => l(d)),
+  };
+}
+
 describe('useAnalysis', () => {
+  it('sends a design from its feed at once, and does not send an older one a later render still shows', async () => {
+    const { client, calls } = fakeClient();
+    const { feed, emit } = testFeed();
+    const { result, rerender } = renderHook(({ d }) => useAnalysis(d, client, feed), { initialProps: { d: named('a') } });
+    await act(async () => calls[0].resolve());
+    emit(named('b')); // outside act: no render has happened, the request is already out
+    expect(calls.map((c) => c.name)).toEqual(['a', 'b']);
+    rerender({ d: named('a2') }); // a render of an older reading does not go to the engine
+    await act(async () => calls[1].resolve());
+    expect(calls.map((c) => c.name)).toEqual(['a', 'b']);
+    expect(tagOf(result.current.result)).toBe('b');
+    expect(result.current.pending).toBe(false);
+  });
+
   it('analyses the design and reports pending until the result arrives', async () => {
     const { client, calls } = fakeClient();
     const { result } = renderHook(() => useAnalysis(named('a'), client));

@@ -72,6 +72,8 @@ export function useAnalysisStore(design: Design | null, client: EngineClient = g
   const alive = useRef(true);
   /** content of the newest design sent to the engine */
   const sentKey = useRef<string | null>(null);
+  /** true once the feed has delivered: from then on it alone sends (a render may show an older design) */
+  const fed = useRef(false);
 
   useEffect(() => {
     alive.current = true;
@@ -103,10 +105,15 @@ export function useAnalysisStore(design: Design | null, client: EngineClient = g
 
   useEffect(() => {
     if (!feed) return;
-    return feed.subscribe((d) => {
+    const stop = feed.subscribe((d) => {
       if (!alive.current) return;
+      fed.current = true;
       send(d, JSON.stringify(d));
     });
+    return () => {
+      stop();
+      fed.current = false;
+    };
   }, [feed, send]);
 
   // Content, not identity, decides whether to re-analyse.
@@ -119,10 +126,11 @@ export function useAnalysisStore(design: Design | null, client: EngineClient = g
     if (!design) {
       scheduler.cancel();
       sentKey.current = null;
+      fed.current = false;
       setState(IDLE);
       return;
     }
-    send(design, key);
+    if (!fed.current) send(design, key);
     // (a request sent from the feed may have delivered already)
     const pending = scheduler.busy;
     setState((s) => (s.pending === pending ? s : { ...s, pending }));

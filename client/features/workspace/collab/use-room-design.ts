@@ -3,7 +3,7 @@
  * that does not parse keeps the last good design on screen and reports the reason (the JSON path
  * and what is wrong) for a banner.
  */
-import { useEffect, useMemo, useState } from 'react';
+import { startTransition, useEffect, useMemo, useState } from 'react';
 import type * as Y from 'yjs';
 import { readDesign, readDesignInput } from '../../../../shared/collab/schema';
 import { DesignError, type Design } from '../../../../shared/rf/design';
@@ -112,7 +112,9 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
         const design = shareUnchanged(last, reading.design);
         last = design;
         for (const listener of listeners) listener(design);
-        setState({ design, error: null });
+        // The screen's render of a new design may be interrupted (by the chart drawing the analysis
+        // result the feed asked for); the feed already has it.
+        startTransition(() => setState({ design, error: null }));
       } else {
         lastKey = null;
         if (ready) setState((s) => ({ design: s.design, error: reading.message }));
