@@ -4,7 +4,7 @@
  *
  *   - `ml:room:<roomId>`: every accepted document update and every presence (awareness) update of the
  *     room, binary: one kind byte (0 update, 1 awareness), the 16-byte id of the sending process, the
- *     Yjs bytes. A process subscribes while it has the room loaded (before reading it from the
+ *     update's row id in `room_updates` (8 bytes, float64 big-endian; 0 for presence), the Yjs bytes. A process subscribes while it has the room loaded (before reading it from the
  *     database, so nothing falls between the read and the subscription).
  *   - `ml:control`: JSON messages to every process: role changes, removals and deletions (which take
  *     effect on the open sockets there), socket.io presence lists and follow-mode views.
@@ -21,6 +21,7 @@ import type { Role } from '../auth/tokens';
 import type { ViewState } from '../../shared/collab/events';
 
 export type RoomMessageKind = 'update' | 'awareness';
+export type RoomMessageHandler = (kind: RoomMessageKind, bytes: Uint8Array, logId: number) => void;
 
 /** A socket.io member as another process sees it. */
 export interface ClusterMember {
@@ -42,9 +43,10 @@ export interface Cluster {
   /** This process's id on the wire (hex). */
   readonly processId: string;
   /** Receive the room's messages from other processes; resolves once subscribed. */
-  joinRoom(roomId: string, onMessage: (kind: RoomMessageKind, bytes: Uint8Array) => void): Promise<void>;
+  joinRoom(roomId: string, onMessage: RoomMessageHandler): Promise<void>;
   leaveRoom(roomId: string): void;
-  publishRoom(roomId: string, kind: RoomMessageKind, bytes: Uint8Array): void;
+  /** `logId`: the update's row id in `room_updates` (0 for presence). */
+  publishRoom(roomId: string, kind: RoomMessageKind, bytes: Uint8Array, logId?: number): void;
   publish(message: ClusterMessage): void;
   /** Messages from other processes on the control channel (with the sender's process id). */
   onControl(handler: (message: ClusterMessage, from: string) => void): void;
@@ -58,6 +60,7 @@ const CONTROL = 'ml:control';
 const roomChannel = (roomId: string) => `ml:room:${roomId}`;
 const KIND_BYTE: Record<RoomMessageKind, number> = { update: 0, awareness: 1 };
 const ID_BYTES = 16;
+const HEAD_BYTES = 1 + ID_BYTES + 8;
 /** How long a process waits for Redis at start before giving up with a clear message (ms). */
 const CONNECT_TIMEOUT_MS = 10_000;
 
@@ -133,7 +136,7 @@ export async function connectCluster(url: string, logger: Logger): Promise<Clust
     throw e;
   }
 
-  const rooms = new Map<string, (kind: RoomMessageKind, bytes: Uint8Array) => void>();
+  const rooms = new Map<string, RoomMessageHandler>();
   const controlHandlers: ((m: ClusterMessage, from: string) => void)[] = [];
   const resyncHandlers: (() => void)[] = [];
   await sub.subscribe(CONTROL);
@@ -152,13 +155,14 @@ export async function connectCluster(url: string, logger: Logger): Promise<Clust
       }
       return;
     }
-    if (!channel.startsWith('ml:room:') || message.byteLength < 1 + ID_BYTES) return;
+    if (!channel.startsWith('ml:room:') || message.byteLength < HEAD_BYTES) return;
     if (message.subarray(1, 1 + ID_BYTES).equals(idBytes)) return; // our own
     const handler = rooms.get(channel.slice('ml:room:'.length));
     const kind: RoomMessageKind | null = message[0] === 0 ? 'update' : message[0] === 1 ? 'awareness' : null;
     if (!handler || !kind) return;
-    const bytes = new Uint8Array(message.buffer, message.byteOffset + 1 + ID_BYTES, message.byteLength - 1 - ID_BYTES);
-    handler(kind, bytes.slice());
+    const logId = message.readDoubleBE(1 + ID_BYTES);
+    const bytes = new Uint8Array(message.buffer, message.byteOffset + HEAD_BYTES, message.byteLength - HEAD_BYTES);
+    handler(kind, bytes.slice(), logId);
   });
 
   // The subscriber is ready already: a later `ready` means it reconnected (ioredis resubscribes by
@@ -180,11 +184,12 @@ export async function connectCluster(url: string, logger: Logger): Promise<Clust
       if (!rooms.delete(roomId)) return;
       void sub.unsubscribe(roomChannel(roomId)).catch(() => {});
     },
-    publishRoom(roomId, kind, bytes) {
-      const frame = Buffer.allocUnsafe(1 + ID_BYTES + bytes.byteLength);
+    publishRoom(roomId, kind, bytes, logId = 0) {
+      const frame = Buffer.allocUnsafe(HEAD_BYTES + bytes.byteLength);
       frame[0] = KIND_BYTE[kind];
       idBytes.copy(frame, 1);
-      frame.set(bytes, 1 + ID_BYTES);
+      frame.writeDoubleBE(logId, 1 + ID_BYTES);
+      frame.set(bytes, HEAD_BYTES);
       void pub.publish(roomChannel(roomId), frame).catch((e: Error) => log.warn({ err: e.message, roomId }, 'could not publish a room update'));
     },
     publish(message) {

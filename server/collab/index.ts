@@ -61,6 +61,8 @@ export interface CollabDeps {
 }
 
 export const COLLAB_PATH = '/collab/';
+/** With other processes, how often each loaded room checks the log for rows it has not seen (ms). */
+const CLUSTER_CATCH_UP_MS = 2_000;
 const ROOM_ID = /^[A-Za-z0-9_-]{1,100}$/;
 
 interface Refusal {
@@ -244,6 +246,19 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
         events.fromCluster(message, from);
     }
   });
+  // A process killed between storing an update and publishing it: the others find the row here.
+  let catchingUp = false;
+  const catchUpTimer = cluster
+    ? setInterval(() => {
+        if (catchingUp || closing) return;
+        catchingUp = true;
+        void (async () => {
+          for (const room of registry.all())
+            await room.catchUpLog().catch((e: unknown) => logger.warn({ roomId: room.id, err: e }, 'could not check a room for updates stored elsewhere'));
+        })().finally(() => (catchingUp = false));
+      }, CLUSTER_CATCH_UP_MS)
+    : null;
+  catchUpTimer?.unref();
   cluster?.onResync(() => {
     for (const room of registry.all())
       room.catchUp().catch((e: unknown) => logger.warn({ roomId: room.id, err: e }, 'could not re-read a room after a Redis outage'));
@@ -299,6 +314,7 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
       if (closing) return;
       closing = true;
       clearInterval(ping);
+      if (catchUpTimer) clearInterval(catchUpTimer);
       server?.off('upgrade', onUpgrade);
       await events.close();
       await registry.closeAll();

@@ -128,6 +128,10 @@ export class Room {
   private describeTimer: NodeJS.Timeout | null = null;
   /** The document changed by another process's edit since `lastSnapshot` was read. */
   private snapshotStale = false;
+  /** With other processes: the `room_updates` ids this copy holds (loaded, stored here or relayed). */
+  readonly appliedLogIds = new Set<number>();
+  /** With other processes: the stored state's `upto_id:updated_at` when last looked at. */
+  private stateMark: string | null = null;
 
   private constructor(
     readonly id: string,
@@ -151,8 +155,8 @@ export class Room {
     // With other processes: listen to the room first, then read it, so that no update stored elsewhere
     // falls between the two (what arrives meanwhile is applied once the room exists; Yjs ignores repeats).
     let room: Room | null = null;
-    const early: [RoomMessageKind, Uint8Array][] = [];
-    if (deps.cluster) await deps.cluster.joinRoom(id, (kind, bytes) => (room ? room.fromCluster(kind, bytes) : early.push([kind, bytes])));
+    const early: [RoomMessageKind, Uint8Array, number][] = [];
+    if (deps.cluster) await deps.cluster.joinRoom(id, (kind, bytes, logId) => (room ? room.fromCluster(kind, bytes, logId) : early.push([kind, bytes, logId])));
     let stored;
     try {
       stored = await loadRoomDocument(deps.knex, id);
@@ -162,14 +166,16 @@ export class Room {
     }
     if (stored.skippedUpdates > 0) deps.logger.warn({ roomId: id, skipped: stored.skippedUpdates }, 'skipped damaged room updates while loading');
     const loaded = new Room(id, stored.doc, deps, stored, onIdle);
+    if (deps.cluster) for (const logId of stored.ids) loaded.appliedLogIds.add(logId);
     room = loaded;
-    for (const [kind, bytes] of early) loaded.fromCluster(kind, bytes);
+    for (const [kind, bytes, logId] of early) loaded.fromCluster(kind, bytes, logId);
     return loaded;
   }
 
   /** An update or presence change another process accepted for this room: apply it and pass it on. */
-  fromCluster(kind: RoomMessageKind, bytes: Uint8Array): void {
+  fromCluster(kind: RoomMessageKind, bytes: Uint8Array, logId = 0): void {
     if (this.state !== 'open') return;
+    if (kind === 'update' && logId > 0) this.appliedLogIds.add(logId);
     try {
       if (kind === 'awareness') {
         awarenessProtocol.applyAwarenessUpdate(this.awareness, bytes, CLUSTER_ORIGIN);
@@ -186,8 +192,46 @@ export class Room {
   }
 
   /**
+   * With other processes: apply the log rows this copy has not seen. A process killed between storing an
+   * update and publishing it leaves such a row; so may a Redis hiccup. Cheap: the room's row ids (a few
+   * hundred at most between compactions), then only the missing rows' bytes. When another process has
+   * compacted meanwhile (the rows may be gone into the state), the whole stored document is re-read.
+   */
+  async catchUpLog(): Promise<void> {
+    if (this.state !== 'open' || !this.deps.cluster) return;
+    const { knex } = this.deps;
+    const [state, rows] = await Promise.all([
+      knex('room_states').where({ room_id: this.id }).first('upto_id', 'updated_at'),
+      knex('room_updates').where({ room_id: this.id }).select('id'),
+    ]);
+    if (this.state !== 'open') return;
+    const stateMark = state ? `${state.upto_id}:${state.updated_at}` : '';
+    if (this.stateMark !== null && stateMark !== this.stateMark) {
+      this.stateMark = stateMark;
+      await this.catchUp();
+      return;
+    }
+    this.stateMark = stateMark;
+    const present = new Set(rows.map((r) => Number(r.id)));
+    const missing = [...present].filter((id) => !this.appliedLogIds.has(id));
+    // Forget ids compacted away, so the set stays the size of the log.
+    for (const id of this.appliedLogIds) if (!present.has(id)) this.appliedLogIds.delete(id);
+    if (missing.length === 0) return;
+    const found = await knex('room_updates').whereIn('id', missing.slice(0, 1000)).orderBy('id').select('id', 'update');
+    if (this.state !== 'open') return;
+    let applied = 0;
+    for (const r of found) {
+      const id = Number(r.id);
+      if (this.appliedLogIds.has(id)) continue;
+      this.fromCluster('update', new Uint8Array(r.update as Buffer), id);
+      applied++;
+    }
+    if (applied > 0) this.deps.logger.warn({ roomId: this.id, applied }, 'applied stored room updates that were not relayed (a process stopped between storing and publishing them?)');
+  }
+
+  /**
    * Re-read the room from the database and apply what this copy lacks (after a Redis outage, when
-   * relayed updates may have been missed).
+   * relayed updates may have been missed, or after another process compacted).
    */
   async catchUp(): Promise<void> {
     if (this.state !== 'open') return;
@@ -471,7 +515,10 @@ export class Room {
       }
       try {
         Y.applyUpdate(this.doc, w.update, w.conn ?? SERVER_ORIGIN);
-        this.deps.cluster?.publishRoom(this.id, 'update', w.update);
+        if (this.deps.cluster) {
+          this.appliedLogIds.add(ids[i]);
+          this.deps.cluster.publishRoom(this.id, 'update', w.update, ids[i]);
+        }
       } catch (e) {
         this.deps.logger.warn({ roomId: this.id, userId: w.userId, err: e }, 'a stored update could not be applied');
         w.conn?.close(COLLAB_CLOSE.badMessage, 'the update could not be applied');
