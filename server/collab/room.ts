@@ -9,7 +9,7 @@ import * as Y from 'yjs';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import * as awarenessProtocol from 'y-protocols/awareness';
-import { appendUpdates, compactRoomDocument, loadRoomDocument, saveRoomState, type SyncUpdateWriter } from './store';
+import { appendUpdates, compactRoomDocument, loadRoomDocument, saveRoomState, stateMarkOf, type SyncUpdateWriter } from './store';
 import type { Cluster, RoomMessageKind } from './cluster';
 import type { CollabConnection } from './connection';
 import { formatBytes, type CollabLimits } from './limits';
@@ -130,8 +130,8 @@ export class Room {
   private snapshotStale = false;
   /** With other processes: the `room_updates` ids this copy holds (loaded, stored here or relayed). */
   readonly appliedLogIds = new Set<number>();
-  /** With other processes: the stored state's `upto_id:updated_at` when last looked at. */
-  private stateMark: string | null = null;
+  /** With other processes: the stored state (`stateMarkOf`) as of the last read of the room. */
+  private stateMark = '';
 
   private constructor(
     readonly id: string,
@@ -166,7 +166,10 @@ export class Room {
     }
     if (stored.skippedUpdates > 0) deps.logger.warn({ roomId: id, skipped: stored.skippedUpdates }, 'skipped damaged room updates while loading');
     const loaded = new Room(id, stored.doc, deps, stored, onIdle);
-    if (deps.cluster) for (const logId of stored.ids) loaded.appliedLogIds.add(logId);
+    if (deps.cluster) {
+      for (const logId of stored.ids) loaded.appliedLogIds.add(logId);
+      loaded.stateMark = stored.stateMark;
+    }
     room = loaded;
     for (const [kind, bytes, logId] of early) loaded.fromCluster(kind, bytes, logId);
     return loaded;
@@ -200,13 +203,13 @@ export class Room {
   async catchUpLog(): Promise<void> {
     if (this.state !== 'open' || !this.deps.cluster) return;
     const { knex } = this.deps;
-    const [state, rows] = await Promise.all([
-      knex('room_states').where({ room_id: this.id }).first('upto_id', 'updated_at'),
-      knex('room_updates').where({ room_id: this.id }).select('id'),
-    ]);
+    // The rows first, then the state: a compaction in between shows as a changed state (then the whole
+    // room is re-read), never as rows gone missing unnoticed.
+    const rows = await knex('room_updates').where({ room_id: this.id }).select('id');
+    const state = await knex('room_states').where({ room_id: this.id }).first('upto_id', 'updated_at');
     if (this.state !== 'open') return;
-    const stateMark = state ? `${state.upto_id}:${state.updated_at}` : '';
-    if (this.stateMark !== null && stateMark !== this.stateMark) {
+    const stateMark = state ? stateMarkOf(state) : '';
+    if (stateMark !== this.stateMark) {
       this.stateMark = stateMark;
       await this.catchUp();
       return;
@@ -238,6 +241,8 @@ export class Room {
     const stored = await loadRoomDocument(this.deps.knex, this.id);
     try {
       if (this.state !== 'open') return;
+      this.stateMark = stored.stateMark;
+      for (const logId of stored.ids) this.appliedLogIds.add(logId);
       const missing = Y.encodeStateAsUpdate(stored.doc, Y.encodeStateVector(this.doc));
       if (this.describeUser !== null) this.flushDescribe();
       Y.applyUpdate(this.doc, missing, CLUSTER_ORIGIN);

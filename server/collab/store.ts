@@ -23,6 +23,13 @@ export interface StoredDoc {
   skippedUpdates: number;
   /** the ids of the log rows read. */
   ids: number[];
+  /** which compacted state was read (`stateMarkOf`; '' for none). */
+  stateMark: string;
+}
+
+/** Identifies one version of a room's compacted state: a compaction changes it. */
+export function stateMarkOf(row: { upto_id: unknown; updated_at: unknown }): string {
+  return `${Number(row.upto_id)}:${Number(row.updated_at)}`;
 }
 
 function toUint8(b: Buffer | Uint8Array): Uint8Array {
@@ -87,7 +94,7 @@ export async function loadRoomDocument(knex: Knex | Knex.Transaction, roomId: st
     ids.push(Number(r.id));
     last = Math.max(last, Number(r.id));
   }
-  return { doc, lastUpdateId: last, pendingUpdates: rows.length, skippedUpdates: skipped, ids };
+  return { doc, lastUpdateId: last, pendingUpdates: rows.length, skippedUpdates: skipped, ids, stateMark: state ? stateMarkOf(state) : '' };
 }
 
 /**
