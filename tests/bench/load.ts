@@ -15,7 +15,9 @@
  * and CPU, and exits 1 if any request failed or a socket dropped. The load generator runs on the same
  * machine (two cores shared with the server): the figures are a floor, not a ceiling.
  *
- * Knobs (environment): BENCH_SECONDS (per HTTP run, default 5), ROOMS (default 50), EDIT_SECONDS (20).
+ * Knobs (environment): BENCH_SECONDS (per HTTP run, default 5), ROOMS (default 18), EDIT_SECONDS (20).
+ * Each room's owner adds three members through the API, and the production invitation brake allows 60
+ * additions per client address per 15 minutes: 18 rooms (54 additions) is the most one run can set up.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -63,7 +65,7 @@ const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 
 const HTTP_SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONNECTIONS = [1, 10, 50, 100];
-const ROOMS = Number(process.env.ROOMS ?? 50);
+const ROOMS = Number(process.env.ROOMS ?? 18);
 const PEOPLE_PER_ROOM = 4;
 const EDIT_HZ = 2;
 const EDIT_SECONDS = Number(process.env.EDIT_SECONDS ?? 20);
