@@ -170,6 +170,7 @@ export async function connectCluster(url: string, logger: Logger): Promise<Clust
   let closing = false;
   sub.on('close', () => closing || log.warn('lost the Redis subscription; rooms will re-read the database when it is back'));
   sub.on('ready', () => {
+    warned = false; // the next trouble is news again
     log.info('Redis subscription is back; re-reading loaded rooms');
     for (const h of resyncHandlers) h();
   });

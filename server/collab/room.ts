@@ -209,12 +209,8 @@ export class Room {
     const state = await knex('room_states').where({ room_id: this.id }).first('upto_id', 'updated_at');
     if (this.state !== 'open') return;
     const stateMark = state ? stateMarkOf(state) : '';
-    if (stateMark !== this.stateMark) {
-      this.stateMark = stateMark;
-      await this.catchUp();
-      return;
-    }
-    this.stateMark = stateMark;
+    // catchUp records the state it read; if it fails, the next check tries again.
+    if (stateMark !== this.stateMark) return this.catchUp();
     const present = new Set(rows.map((r) => Number(r.id)));
     const missing = [...present].filter((id) => !this.appliedLogIds.has(id));
     // Forget ids compacted away, so the set stays the size of the log.
