@@ -21,10 +21,14 @@
  * (the event's own clientY gives its drag distance).
  *
  * Options: --events N (default 200), --interval MS (default 16), --keep-screens (screenshots to
- * e2e/screenshots/bench-ui-*.png), --profile (the tuner page's main-thread CPU profile during the
- * drag, summarised by function; most useful on a build made with `vite build --minify false`). Prints a table; exits 0 whatever the numbers (targets are
- * reported, not enforced).
+ * e2e/screenshots/bench-ui-*.png), --profile (the tuner's and the observer's main-thread CPU profiles
+ * during the drag, summarised by function; most useful on a build made with `vite build --minify false`; with
+ * --profile-file PATH also written to PATH-tuner.cpuprofile and PATH-observer.cpuprofile, for DevTools),
+ * --trace FILE (a Chromium trace of the drag written to FILE, and each renderer's main thread (the
+ * tuner's and the observer's) summarised by trace event: where native layout, paint and canvas time goes). Prints a table;
+ * exits 0 whatever the numbers (targets are reported, not enforced).
  */
+import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Page } from 'playwright-core';
 import { CELL_WIDTH, chainLayout } from '../../client/features/workspace/chain/chain-layout';
@@ -39,6 +43,8 @@ const { values: args } = parseArgs({
     interval: { type: 'string', default: '16' },
     'keep-screens': { type: 'boolean', default: false },
     profile: { type: 'boolean', default: false },
+    trace: { type: 'string' },
+    'profile-file': { type: 'string' },
   },
 });
 const EVENTS = Math.max(10, Number(args.events));
@@ -191,7 +197,7 @@ interface CpuProfile {
 }
 
 /** Self time by function (top 25), and by source file. */
-function printProfile(p: CpuProfile) {
+function printProfile(p: CpuProfile, who: string) {
   const byId = new Map(p.nodes.map((n) => [n.id, n]));
   const self = new Map<number, number>();
   p.samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (p.timeDeltas[i] ?? 0) / 1000));
@@ -206,7 +212,7 @@ function printProfile(p: CpuProfile) {
     byFile.set(file, (byFile.get(file) ?? 0) + ms);
     total += ms;
   }
-  console.log(`\ntuner main thread, ${total.toFixed(0)} ms sampled; self time by function:`);
+  console.log(`\n${who} main thread, ${total.toFixed(0)} ms sampled; self time by function:`);
   for (const [k, ms] of [...byFn].sort((a, b) => b[1] - a[1]).slice(0, 25)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
   // inclusive time of the chart's and plot's own work (names survive only in a non-minified build)
   const parent = new Map<number, number>();
@@ -226,6 +232,54 @@ function printProfile(p: CpuProfile) {
   if (incl.size) console.log('inclusive time (React render functions count their render only):', [...incl].map(([k, v]) => `${k} ${v.toFixed(0)} ms`).join(', '));
   console.log('by file:');
   for (const [k, ms] of [...byFile].sort((a, b) => b[1] - a[1]).slice(0, 8)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
+}
+
+interface TraceEvent {
+  name: string;
+  ph: string;
+  pid: number;
+  tid: number;
+  ts: number;
+  dur?: number;
+  args?: { name?: string; data?: { frame?: string; url?: string } };
+}
+
+/**
+ * The renderer main threads' time by trace event (self time: an event's duration less its children's),
+ * for each renderer process with a room page, and the busiest top-level tasks.
+ */
+async function printTrace(file: string) {
+  const raw = JSON.parse(await readFile(file, 'utf8')) as { traceEvents: TraceEvent[] } | TraceEvent[];
+  const events = Array.isArray(raw) ? raw : raw.traceEvents;
+  const mains = new Map<string, string>();
+  for (const e of events) if (e.ph === 'M' && e.name === 'thread_name' && e.args?.name === 'CrRendererMain') mains.set(`${e.pid}:${e.tid}`, `renderer ${e.pid}`);
+  for (const [key, label] of mains) {
+    const own = events.filter((e) => e.ph === 'X' && `${e.pid}:${e.tid}` === key && e.dur !== undefined).sort((a, b) => a.ts - b.ts || b.dur! - a.dur!);
+    if (own.length < 50) continue;
+    const self = new Map<string, number>();
+    const stack: { end: number; name: string; child: number; dur: number }[] = [];
+    let tasks = 0;
+    let busy = 0;
+    const close = (upTo: number) => {
+      while (stack.length && stack[stack.length - 1].end <= upTo) {
+        const top = stack.pop()!;
+        self.set(top.name, (self.get(top.name) ?? 0) + (top.dur - top.child) / 1000);
+        if (stack.length) stack[stack.length - 1].child += top.dur;
+      }
+    };
+    for (const e of own) {
+      close(e.ts);
+      if (!stack.length && e.name === 'ThreadControllerImpl::RunTask') {
+        tasks++;
+        busy += e.dur! / 1000;
+      }
+      stack.push({ end: e.ts + e.dur!, name: e.name, child: 0, dur: e.dur! });
+    }
+    close(Number.POSITIVE_INFINITY);
+    const span = (own[own.length - 1].ts + own[own.length - 1].dur! - own[0].ts) / 1000;
+    console.log(`\n${label} main thread: ${span.toFixed(0)} ms traced, ${tasks} tasks, ${busy.toFixed(0)} ms busy; self time by event:`);
+    for (const [k, ms] of [...self].sort((a, b) => b[1] - a[1]).slice(0, 22)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${k}`);
+  }
 }
 
 async function main() {
@@ -273,8 +327,13 @@ async function main() {
     await a.page.mouse.move(x0, y0);
     await clear(a.page);
     await clear(b.page);
-    const cdp = args.profile ? await a.context.newCDPSession(a.page) : null;
-    if (cdp) {
+    const cdps = args.profile ? [await a.context.newCDPSession(a.page), await b.context.newCDPSession(b.page)] : [];
+    if (args.trace)
+      await browser.startTracing(a.page, {
+        path: args.trace,
+        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink', 'cc', 'toplevel', 'v8.execute', 'renderer.scheduler', 'gpu', 'skia'],
+      });
+    for (const cdp of cdps) {
       await cdp.send('Profiler.enable');
       await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
       await cdp.send('Profiler.start');
@@ -290,7 +349,16 @@ async function main() {
     }
     await a.page.mouse.up();
     await new Promise((r) => setTimeout(r, 1500));
-    if (cdp) printProfile((await cdp.send('Profiler.stop')).profile as CpuProfile);
+    for (const [i, cdp] of cdps.entries()) {
+      const profile = (await cdp.send('Profiler.stop')).profile as CpuProfile;
+      const who = i === 0 ? 'tuner' : 'observer';
+      if (args['profile-file']) await writeFile(args['profile-file'].replace(/(\.cpuprofile)?$/, `-${who}.cpuprofile`), JSON.stringify(profile));
+      printProfile(profile, who);
+    }
+    if (args.trace) {
+      await browser.stopTracing();
+      await printTrace(args.trace);
+    }
 
     const logA = (await a.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;
     const logB = (await b.page.evaluate(() => (window as unknown as { __benchLog: PageLog }).__benchLog)) as PageLog;

@@ -19,6 +19,9 @@ import { elementDescription, elementValueLabel } from './element-summary';
 import { CELL_WIDTH, GROUND_Y, LOAD_WIDTH, PORT_WIDTH, RAIL_Y, chainLayout, dropIndex } from './chain-layout';
 import { ElementSymbol, Ground, INK, LockMark, tintOf } from './element-symbol';
 import { loadSummary } from './load-summary';
+import { installLowLatencyKonvaCanvases } from '../layout/low-latency-canvas';
+
+installLowLatencyKonvaCanvases();
 
 export interface ChainCanvasProps {
   design: Design;

@@ -9,10 +9,13 @@
  *   other people's pointers.
  *
  * Three Konva layers: the grid (cached bitmap, redrawn only on size/view/grid options), the traces
- * (redrawn synchronously when a new result arrives) and the pointer layer (hover, cursors).
+ * (one shape drawing the trace model, trace-drawing.ts; redrawn synchronously, and only, when a new
+ * model is built: a result, the view, a selection, an overlay) and the pointer layer (hover,
+ * cursors). A new result re-renders this component but not the Konva stage: react-konva reconciles
+ * the stage only when the grid, the cursors or the hover change.
  */
-import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
-import { Circle, Group, Layer, Line, Rect, RegularPolygon, Stage, Text } from 'react-konva';
+import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type RefObject } from 'react';
+import { Circle, Group, Layer, Line, Rect, Shape, Stage, Text } from 'react-konva';
 import type Konva from 'konva';
 import type { Design } from '../../../../shared/rf/design';
 import type { AnalysisResult, ImpedancePath } from '../analysis/engine-types';
@@ -21,8 +24,10 @@ import { drawingKeyOf, sameDrawingProps } from '../analysis/drawing-key';
 import { CHART_PALETTE, elementKindColour, elementKindFamily } from './chart-palette';
 import { DEFAULT_VIEW, panView, pixelToGamma, zoomViewAt, type ChartView } from './geometry';
 import { buildGridModel, labelWidth, type GridModel } from './grid-model';
-import { chartReadout, chartSummary, frequencyText, type Readout } from './readout';
-import { buildTraceModel, chartZ0, nearestTracePoint, pathElementAt, traceGammas, type Overlay, type TraceModel } from './trace-model';
+import { chartReadout, chartSummary, type Readout } from './readout';
+import { CHART_FONT, drawTraceModel } from './trace-drawing';
+import { installLowLatencyKonvaCanvases } from '../layout/low-latency-canvas';
+import { buildTraceModel, chartZ0, nearestTracePoint, pathElementAt, traceGammas, type CursorMark, type TraceModel } from './trace-model';
 
 export interface ChartCursor {
   userId: string;
@@ -64,7 +69,9 @@ export interface SmithChartProps {
   onPickFrequency?: (hz: number) => void;
 }
 
-const FONT = "'Nunito Sans', ui-sans-serif, system-ui, sans-serif";
+installLowLatencyKonvaCanvases();
+
+const FONT = CHART_FONT;
 const MONO = "ui-monospace, 'DejaVu Sans Mono', 'Liberation Mono', monospace";
 const ZOOM_STEP = 1.25;
 
@@ -142,11 +149,17 @@ function SmithChartView(props: SmithChartProps) {
     };
   }, []);
 
-  // Draw the traces now rather than on the next animation frame, and tell the bench.
+  // Draw the traces now rather than on the next animation frame, and tell the bench. The trace
+  // layer's one shape reads the newest model from here whenever Konva draws it.
+  const drawnTrace = useRef(trace);
+  const sceneFunc = useCallback((context: Konva.Context) => drawTraceModel(context._context, drawnTrace.current), []);
   useLayoutEffect(() => {
+    drawnTrace.current = trace;
     traceLayer.current?.draw();
     markDrawn('chart', result);
   }, [trace, result]);
+  // other people's cursors by content (the trace model is rebuilt for every result)
+  const cursorMarks = useMemo(() => trace.cursors, [cursorMarksKeyOf(trace.cursors)]);
 
   // ---- pointer: hover read-out, zoom, pan, clicks -------------------------------------------
   const box = useRef<HTMLDivElement>(null);
@@ -269,19 +282,17 @@ function SmithChartView(props: SmithChartProps) {
       data-testid="smith-chart"
     >
       <div role="img" aria-label={summary}>
-        <Stage width={width} height={height} listening={false}>
-          <Layer ref={gridLayer} listening={false}>
-            <Group ref={gridGroup}>
-              <GridShapes grid={grid} />
-            </Group>
-          </Layer>
-          <Layer ref={traceLayer} listening={false}>
-            <TraceShapes model={trace} />
-          </Layer>
-          <Layer listening={false}>
-            <PointerShapes model={trace} hover={hover} />
-          </Layer>
-        </Stage>
+        <ChartStage
+          width={width}
+          height={height}
+          grid={grid}
+          cursors={cursorMarks}
+          hover={hover}
+          sceneFunc={sceneFunc}
+          gridGroup={gridGroup}
+          gridLayer={gridLayer}
+          traceLayer={traceLayer}
+        />
       </div>
       {hover ? <ReadoutCard hover={hover} width={width} /> : null}
       {kinds.length ? <Legend kinds={kinds} compare={props.compare?.label ?? null} preview={!!props.preview} /> : null}
@@ -295,6 +306,41 @@ function SmithChartView(props: SmithChartProps) {
       </p>
     </div>
   );
+}
+
+interface ChartStageProps {
+  width: number;
+  height: number;
+  grid: GridModel;
+  cursors: CursorMark[];
+  hover: Hover | null;
+  sceneFunc: (context: Konva.Context) => void;
+  gridGroup: RefObject<Konva.Group | null>;
+  gridLayer: RefObject<Konva.Layer | null>;
+  traceLayer: RefObject<Konva.Layer | null>;
+}
+
+/** The Konva stage; re-rendered (and reconciled by react-konva) only when one of its props changes. */
+const ChartStage = memo(function ChartStage({ width, height, grid, cursors, hover, sceneFunc, gridGroup, gridLayer, traceLayer }: ChartStageProps) {
+  return (
+    <Stage width={width} height={height} listening={false}>
+      <Layer ref={gridLayer} listening={false}>
+        <Group ref={gridGroup}>
+          <GridShapes grid={grid} />
+        </Group>
+      </Layer>
+      <Layer ref={traceLayer} listening={false}>
+        <Shape sceneFunc={sceneFunc} listening={false} perfectDrawEnabled={false} />
+      </Layer>
+      <Layer listening={false}>
+        <PointerShapes cursors={cursors} hover={hover} />
+      </Layer>
+    </Stage>
+  );
+});
+
+function cursorMarksKeyOf(marks: CursorMark[]): string {
+  return marks.map((c) => `${c.userId}:${c.name}:${c.colour}:${c.x}:${c.y}`).join('|');
 }
 
 /** Other people's cursors by value: presence hands over a new array on every awareness change. */
@@ -314,7 +360,8 @@ function cacheGrid(g: Konva.Group, width: number, height: number): void {
   g.cache({ x: 0, y: 0, width, height, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 });
 }
 
-function GridShapes({ grid }: { grid: GridModel }) {
+/** Memoised: any re-render would hand Konva a new clip function and redraw the cached grid. */
+const GridShapes = memo(function GridShapes({ grid }: { grid: GridModel }) {
   const f = grid.frame;
   const clip = (ctx: Konva.Context) => {
     ctx.beginPath();
@@ -348,109 +395,14 @@ function GridShapes({ grid }: { grid: GridModel }) {
       ))}
     </>
   );
-}
+});
 
-// ---- traces --------------------------------------------------------------------------------
+// ---- pointer layer ----------------------------------------------------------------------
 
-function OverlayShapes({ o, colour }: { o: Overlay; colour: string }) {
+function PointerShapes({ cursors, hover }: { cursors: CursorMark[]; hover: Hover | null }) {
   return (
     <>
-      {o.path.map((pts, i) => (
-        <Line key={`p${i}`} points={pts} stroke={colour} strokeWidth={2} dash={[6, 4]} opacity={0.75} lineCap="round" lineJoin="round" />
-      ))}
-      {o.trace?.outside.map((pts, i) => <Line key={`o${i}`} points={pts} stroke={colour} strokeWidth={1.2} dash={[4, 4]} opacity={0.55} />)}
-      {o.trace ? <Line points={o.trace.inBand} stroke={colour} strokeWidth={3} dash={[8, 5]} opacity={0.7} lineCap="round" lineJoin="round" /> : null}
-    </>
-  );
-}
-
-function TraceShapes({ model }: { model: TraceModel }) {
-  const shapes: ReactNode[] = [];
-  if (model.envelope) shapes.push(<Line key="env" points={model.envelope} closed fill={CHART_PALETTE.envelope} strokeEnabled={false} />);
-  if (model.goal && model.goal.r > 0.5) {
-    shapes.push(
-      <Circle key="goal" x={model.goal.x} y={model.goal.y} radius={model.goal.r} stroke={CHART_PALETTE.goal} strokeWidth={1.4} dash={[7, 5]} />,
-    );
-    const gv = (1 + model.goal.gamma) / (1 - model.goal.gamma);
-    shapes.push(
-      <Text
-        key="goal-label"
-        x={model.goal.x + model.goal.r * 0.7071 + 3}
-        y={model.goal.y - model.goal.r * 0.7071 - 13}
-        text={`goal VSWR ${Number(gv.toPrecision(3))}`}
-        fontSize={10}
-        fontFamily={FONT}
-        fill={CHART_PALETTE.goal}
-      />,
-    );
-  }
-  if (model.compare) shapes.push(<OverlayShapes key="cmp" o={model.compare} colour={CHART_PALETTE.compare} />);
-  if (model.preview) shapes.push(<OverlayShapes key="pre" o={model.preview} colour={CHART_PALETTE.preview} />);
-  if (model.trace) {
-    model.trace.outside.forEach((pts, i) =>
-      shapes.push(<Line key={`tout${i}`} points={pts} stroke={CHART_PALETTE.traceOutOfBand} strokeWidth={1.6} lineCap="round" lineJoin="round" />),
-    );
-    shapes.push(<Line key="tin" points={model.trace.inBand} stroke={CHART_PALETTE.trace} strokeWidth={4.5} lineCap="round" lineJoin="round" />);
-  }
-  // other people's selections: a halo in each person's colour (several on one stage nest, widest below)
-  const peersOn = new Map<string, number>();
-  const halos = model.peerSelections.map((p) => {
-    const n = peersOn.get(p.elementId) ?? 0;
-    peersOn.set(p.elementId, n + 1);
-    return { p, width: 14 + 5 * n };
-  });
-  for (const { p, width } of halos.sort((a, b) => b.width - a.width))
-    shapes.push(
-      <Line key={`peer-${p.userId}-${p.elementId}`} points={p.points} stroke={p.colour} strokeWidth={width} opacity={0.45} lineCap="round" lineJoin="round" />,
-    );
-  for (const s of model.path) {
-    if (s.selected) shapes.push(<Line key={`sel-${s.elementId}`} points={s.points} stroke={CHART_PALETTE.selection} strokeWidth={10} lineCap="round" lineJoin="round" />);
-    shapes.push(<Line key={`seg-${s.elementId}`} points={s.points} stroke={s.colour} strokeWidth={2.6} lineCap="round" lineJoin="round" />);
-  }
-  for (const m of model.stages) {
-    if (m.role === 'load')
-      shapes.push(<Rect key="stage-load" x={m.x - 4.5} y={m.y - 4.5} width={9} height={9} fill={CHART_PALETTE.ink} cornerRadius={1.5} />);
-    else
-      shapes.push(
-        <Circle
-          key={`stage-${m.after}`}
-          x={m.x}
-          y={m.y}
-          radius={m.role === 'port' ? 5.5 : 4}
-          fill={m.role === 'port' ? m.colour : CHART_PALETTE.paper}
-          stroke={m.colour}
-          strokeWidth={2}
-        />,
-      );
-  }
-  const centre = model.bandMarks.find((b) => b.role === 'centre');
-  for (const b of model.bandMarks) {
-    if (b.role === 'centre')
-      shapes.push(<RegularPolygon key="band-centre" x={b.x} y={b.y} sides={4} radius={6} fill={CHART_PALETTE.traceDeep} stroke={CHART_PALETTE.paper} strokeWidth={1.2} />);
-    else {
-      shapes.push(<Circle key={`band-${b.role}`} x={b.x} y={b.y} radius={4.5} fill={CHART_PALETTE.paper} stroke={CHART_PALETTE.traceDeep} strokeWidth={2} />);
-      const text = frequencyText(b.hz);
-      // push each edge label away from the centre mark (so the two edges never share a spot), else away from Γ = 0
-      let dx = centre ? b.x - centre.x : 0;
-      let dy = centre ? b.y - centre.y : 0;
-      if (Math.hypot(dx, dy) < 2) {
-        dx = b.x - model.frame.cx;
-        dy = b.y - model.frame.cy;
-      }
-      const d = Math.hypot(dx, dy) || 1;
-      const w = labelWidth(text);
-      const lx = b.x + (dx / d) * 14 - (dx < 0 ? w : 0);
-      const ly = b.y + (dy / d) * 14 - 6;
-      shapes.push(<Text key={`band-${b.role}-t`} x={lx} y={ly} text={text} fontSize={10} fontStyle="bold" fontFamily={FONT} fill={CHART_PALETTE.traceDeep} />);
-    }
-  }
-  return <>{shapes}</>;
-}
-
-function PointerShapes({ model, hover }: { model: TraceModel; hover: Hover | null }) {
-  return (
-    <>
-      {model.cursors.map((c) => (
+      {cursors.map((c) => (
         <Group key={c.userId} x={c.x} y={c.y}>
           <Circle radius={5} fill={c.colour} stroke={CHART_PALETTE.paper} strokeWidth={1.5} />
           <Rect x={8} y={-8} width={labelWidth(c.name) + 8} height={16} cornerRadius={8} fill={c.colour} opacity={0.92} />

@@ -13,6 +13,7 @@ import type { Design } from '../../../../shared/rf/design';
 import type { AnalysisResult } from '../analysis/engine-types';
 import { markDrawn } from '../analysis/draw-marks';
 import { drawingKeyOf, sameDrawingProps } from '../analysis/drawing-key';
+import { withLowLatencyCanvases } from '../layout/low-latency-canvas';
 import { buildPlotModel, plotSummary, type PlotModel, type SweepPlotMode } from './plot-model';
 
 export type { SweepPlotMode };
@@ -203,10 +204,13 @@ function SweepPlotView(props: SweepPlotProps) {
   useLayoutEffect(() => {
     const el = holder.current;
     if (!el) return;
-    const u = new uPlot(
-      plotOptions(latest.current, width, height, latest, () => markDrawn('plot', drawnResult.current), setCursorIdx),
-      alignedData(latest.current),
-      el,
+    const u = withLowLatencyCanvases(
+      () =>
+        new uPlot(
+          plotOptions(latest.current, width, height, latest, () => markDrawn('plot', drawnResult.current), setCursorIdx),
+          alignedData(latest.current),
+          el,
+        ),
     );
     plot.current = u;
     return () => {
