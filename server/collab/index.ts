@@ -78,8 +78,8 @@ export function createCollabHub(deps: CollabDeps, limitsOverride: Partial<Collab
 
   // eslint-disable-next-line prefer-const
   let events: RoomEvents;
-  const roomLog = new RoomLogWriter(knex, logger, limits, (roomId, entry) => events.emitLog(roomId, entry));
   const syncWriter = openSyncUpdateWriter(knex);
+  const roomLog = new RoomLogWriter(knex, logger, limits, (roomId, entry) => events.emitLog(roomId, entry), syncWriter);
   // eslint-disable-next-line prefer-const
   let registry: RoomRegistry;
   const cluster = deps.cluster ?? null;

@@ -205,7 +205,10 @@ export class RoomEvents {
   }
 
   emit(roomId: string, event: string, payload: unknown): void {
-    this.io?.to(roomKey(roomId)).emit(event, payload);
+    if (!this.io) return;
+    // Alone, with nobody in the room here, there is nobody to tell (and nothing to encode).
+    if (!this.deps.cluster && !this.io.sockets.adapter.rooms.has(roomKey(roomId))) return;
+    this.io.to(roomKey(roomId)).emit(event, payload);
   }
 
   /** Send a room log entry to the room. */

@@ -65,8 +65,11 @@ export const SERVER_ORIGIN = Symbol('matchloom-server-update');
 /** The transaction origin of updates another process stored and relayed (broadcast to every socket here). */
 export const CLUSTER_ORIGIN = Symbol('matchloom-cluster-update');
 
-/** How long after an edit its room log description is made (ms). */
-const DESCRIBE_DELAY_MS = 40;
+/**
+ * How long after an edit its room log description is made (ms): during a drag the document is read and
+ * compared once per 200 ms, not per update (the room log sends a changing entry at most every 250 ms).
+ */
+const DESCRIBE_DELAY_MS = 200;
 
 type RoomState = 'open' | 'closing' | 'closed';
 

@@ -162,6 +162,10 @@ export interface SyncUpdateWriter {
   appendMany(batches: readonly { roomId: string; rows: readonly { update: Uint8Array; userId: string | null }[] }[]): number[][] | null;
   /** `saveRoomState`, synchronously; false if the database is busy. */
   saveState(roomId: string, state: Uint8Array, uptoId: number): boolean;
+  /** Insert a room log row; its id, or null if the database is busy. */
+  insertLog(roomId: string, userId: string | null, message: string, at: number): number | null;
+  /** Reword a room log row; false if the database is busy. */
+  updateLog(id: number, message: string, at: number): boolean;
   close(): void;
 }
 
@@ -186,11 +190,16 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
     const updateState = db.prepare('update room_states set state = ?, upto_id = ?, updated_at = ? where room_id = ?');
     const insertState = db.prepare('insert into room_states (room_id, state, upto_id, updated_at) values (?, ?, ?, ?)');
     const deleteUpto = db.prepare('delete from room_updates where room_id = ? and id <= ?');
+    const insertLog = db.prepare('insert into room_log (room_id, user_id, message, created_at) values (?, ?, ?, ?)');
+    const updateLog = db.prepare('update room_log set message = ?, created_at = ? where id = ?');
     return {
+      insertLog,
+      updateLog,
       appendMany: db.transaction((batches: readonly { roomId: string; rows: readonly { update: Uint8Array; userId: string | null }[] }[]) => {
         const now = Date.now();
-        return batches.map((b) => b.rows.map((r) => Number(insert.run(b.roomId, Buffer.from(r.update), r.userId, now).lastInsertRowid)));
+        return batches.map((b) => b.rows.map((r) => Number(insert.run(b.roomId, blob(r.update), r.userId, now).lastInsertRowid)));
       }),
+      insert,
       save: db.transaction((roomId: string, state: Uint8Array, uptoId: number) => {
         const now = Date.now();
         if (hasState.get(roomId)) updateState.run(Buffer.from(state), uptoId, now, roomId);
@@ -201,32 +210,55 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
   }
   const st = () => (statements ??= prepare());
   const busy = (e: unknown) => (e as { code?: string }).code === 'SQLITE_BUSY' || (e as { code?: string }).code === 'SQLITE_LOCKED';
+  /** `write()`, or `whenBusy` if another connection holds the write lock (never waits for it). */
+  function unlessBusy<T>(write: () => T, whenBusy: T): T {
+    try {
+      return write();
+    } catch (e) {
+      if (busy(e)) return whenBusy;
+      throw e;
+    }
+  }
   return {
     append(roomId, rows) {
       return this.appendMany([{ roomId, rows }])?.[0] ?? null;
     },
     appendMany(batches) {
-      try {
+      return unlessBusy(() => {
+        // One row (the usual case: one update per turn) needs no explicit transaction: the insert's own
+        // autocommit is atomic.
+        if (batches.length === 1 && batches[0].rows.length === 1) {
+          const { roomId, rows } = batches[0];
+          return [[Number(st().insert.run(roomId, blob(rows[0].update), rows[0].userId, Date.now()).lastInsertRowid)]];
+        }
         return st().appendMany.immediate(batches);
-      } catch (e) {
-        if (busy(e)) return null;
-        throw e;
-      }
+      }, null);
     },
     saveState(roomId, state, uptoId) {
-      try {
+      return unlessBusy(() => {
         st().save.immediate(roomId, state, uptoId);
         return true;
-      } catch (e) {
-        if (busy(e)) return false;
-        throw e;
-      }
+      }, false);
+    },
+    insertLog(roomId, userId, message, at) {
+      return unlessBusy(() => Number(st().insertLog.run(roomId, userId, message, at).lastInsertRowid), null);
+    },
+    updateLog(id, message, at) {
+      return unlessBusy(() => {
+        st().updateLog.run(message, at, id);
+        return true;
+      }, false);
     },
     close() {
       void checkpointer.terminate();
       if (db.open) db.close();
     },
   };
+}
+
+/** The bytes as a Buffer over the same memory (better-sqlite3 binds only Buffers as blobs; no copy). */
+function blob(u: Uint8Array): Buffer {
+  return Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
 }
 
 /** Milliseconds between WAL checkpoints on the checkpoint thread. */

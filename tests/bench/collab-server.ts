@@ -1,8 +1,12 @@
 // One server process for the collab benchmark. `matchloom`: the real server (startServer) on a temp
 // SQLite file. `bare`: a plain y-websocket server (@y/websocket-server setupWSConnection; no auth, no
-// persistence). Prints {"port": n}; answers IPC "stats" with its CPU time and memory (after a GC).
+// persistence). Prints {"port": n}; answers IPC "stats" with its CPU time and memory (after a GC);
+// with BENCH_PROFILE set, IPC "profile-resume" / "profile-pause" bracket a CPU profile written there.
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { writeFileSync } from 'node:fs';
+import { Session } from 'node:inspector/promises';
+import { join } from 'node:path';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { WebSocketServer } from 'ws';
 import { setupWSConnection } from '@y/websocket-server/utils';
@@ -31,7 +35,24 @@ async function start(): Promise<number> {
 const port = await start();
 const loopDelay = monitorEventLoopDelay({ resolution: 5 });
 loopDelay.enable();
-process.on('message', (msg) => {
+// With BENCH_PROFILE=<dir>, the main thread's CPU profile of the measuring windows only (no set-up).
+const profiler = process.env.BENCH_PROFILE ? new Session() : null;
+if (profiler) {
+  profiler.connect();
+  await profiler.post('Profiler.enable');
+  await profiler.post('Profiler.setSamplingInterval', { interval: 100 });
+}
+let profiling = false;
+process.on('message', async (msg) => {
+  if (profiler && msg === 'profile-resume' && !profiling) {
+    profiling = true;
+    await profiler.post('Profiler.start');
+  }
+  if (profiler && msg === 'profile-pause' && profiling) {
+    profiling = false;
+    const { profile } = await profiler.post('Profiler.stop');
+    writeFileSync(join(process.env.BENCH_PROFILE!, `${mode}-${Date.now()}.cpuprofile`), JSON.stringify(profile));
+  }
   if (msg !== 'stats') return;
   (globalThis as { gc?: () => void }).gc?.();
   // The longest event-loop stall since the last call (ms): a sign of blocking work in the server.

@@ -10,6 +10,8 @@
  *
  *   npm run bench:collab               # about 90 s
  *   BENCH_SECONDS=3 npm run bench:collab
+ *   BENCH_ONLY="50 rooms" BENCH_PROFILE=/tmp/prof npm run bench:collab   # one scenario; CPU profiles of
+ *                                       # each server's measuring windows (not the set-up) in /tmp/prof
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { rmSync } from 'node:fs';
@@ -61,7 +63,7 @@ interface ServerProc {
 
 async function startServerProcess(mode: 'matchloom' | 'bare', databaseFile: string): Promise<ServerProc> {
   const script = join(process.cwd(), 'tests', 'bench', 'collab-server.ts');
-  const child = spawn(process.execPath, [...(process.env.BENCH_PROFILE ? ['--cpu-prof', '--cpu-prof-dir=' + process.env.BENCH_PROFILE] : []), '--expose-gc', '--import', 'tsx', script, mode], {
+  const child = spawn(process.execPath, ['--expose-gc', '--import', 'tsx', script, mode], {
     env: { ...process.env, DATABASE_FILE: databaseFile, LOG_LEVEL: 'silent' },
     stdio: ['ignore', 'pipe', 'inherit', 'ipc'],
   });
@@ -175,6 +177,7 @@ async function setUp(mode: 'matchloom' | 'bare', s: Scenario, proc: ServerProc, 
     async window(ms) {
       measuring = true;
       const t0 = await proc.stats();
+      if (process.env.BENCH_PROFILE) proc.child.send('profile-resume');
       const timers: NodeJS.Timeout[] = [];
       for (const cl of clients.filter((x) => x.editor)) {
         const edit = () => {
@@ -195,6 +198,7 @@ async function setUp(mode: 'matchloom' | 'bare', s: Scenario, proc: ServerProc, 
       await new Promise((res) => setTimeout(res, ms));
       for (const t of timers) clearTimeout(t);
       await new Promise((res) => setTimeout(res, 300)); // stragglers
+      if (process.env.BENCH_PROFILE) proc.child.send('profile-pause');
       const t1 = await proc.stats();
       measuring = false;
       cpuMs += (t1.cpu.user - t0.cpu.user + t1.cpu.system - t0.cpu.system) / 1000;
