@@ -6,30 +6,19 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
-bin=$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1 || true)
-if [ -z "$bin" ] || [ ! -x "$bin/initdb" ]; then
-  echo "pg-test: no PostgreSQL under /usr/lib/postgresql (apt-get install -y postgresql)" >&2
-  exit 2
-fi
-as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+. scripts/lib/throwaway-pg.sh
+pg_bin pg-test
 
 dir=$(mktemp -d /tmp/matchloom-pg-XXXXXX)
-chmod 755 "$dir"
-[ "$(id -u)" = 0 ] && chown postgres: "$dir"
-port=$(node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})")
-
+port=$(free_port)
 cleanup() {
-  as_pg "$bin/pg_ctl" -D "$dir/data" -m fast -w stop >/dev/null 2>&1 || true
+  pg_stop "$dir"
   rm -rf "$dir"
 }
 trap cleanup EXIT
 
-as_pg "$bin/initdb" -D "$dir/data" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >"$dir/initdb.log" 2>&1 \
-  || { cat "$dir/initdb.log" >&2; exit 1; }
-as_pg "$bin/pg_ctl" -D "$dir/data" -l "$dir/server.log" -w \
-  -o "-c listen_addresses=127.0.0.1 -c port=$port -c unix_socket_directories=$dir -c fsync=off" start >/dev/null \
-  || { cat "$dir/server.log" >&2; exit 1; }
-as_pg "$bin/createdb" -h 127.0.0.1 -p "$port" -U postgres matchloom_test
+pg_start "$dir" "$port"
+as_pg "$PG_BIN/createdb" -h 127.0.0.1 -p "$port" -U postgres matchloom_test
 
 start=$(date +%s)
 status=0

@@ -8,23 +8,16 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
-bin=$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1 || true)
-if [ -z "$bin" ] || [ ! -x "$bin/initdb" ]; then
-  echo "scale-test: no PostgreSQL under /usr/lib/postgresql (apt-get install -y postgresql)" >&2
-  exit 2
-fi
+. scripts/lib/throwaway-pg.sh
+pg_bin scale-test
 redis=$(command -v redis-server || true)
 if [ -z "$redis" ]; then
   echo "scale-test: no redis-server on PATH (apt-get install -y redis-server)" >&2
   exit 2
 fi
-as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
-free_port() { node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
 
 dir=$(mktemp -d /tmp/matchloom-scale-XXXXXX)
-chmod 755 "$dir"
 mkdir "$dir/redis"
-[ "$(id -u)" = 0 ] && chown postgres: "$dir"
 pg_port=$(free_port)
 redis_port=$(free_port)
 redis_pid=
@@ -34,16 +27,12 @@ cleanup() {
     kill "$redis_pid" >/dev/null 2>&1 || true
     wait "$redis_pid" 2>/dev/null || true
   fi
-  as_pg "$bin/pg_ctl" -D "$dir/data" -m fast -w stop >/dev/null 2>&1 || true
+  pg_stop "$dir"
   rm -rf "$dir"
 }
 trap cleanup EXIT
 
-as_pg "$bin/initdb" -D "$dir/data" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >"$dir/initdb.log" 2>&1 \
-  || { cat "$dir/initdb.log" >&2; exit 1; }
-as_pg "$bin/pg_ctl" -D "$dir/data" -l "$dir/server.log" -w \
-  -o "-c listen_addresses=127.0.0.1 -c port=$pg_port -c unix_socket_directories=$dir -c fsync=off -c max_connections=200" start >/dev/null \
-  || { cat "$dir/server.log" >&2; exit 1; }
+pg_start "$dir" "$pg_port" -c max_connections=200
 
 (cd "$dir/redis" && exec "$redis" --port "$redis_port" --bind 127.0.0.1 --save '' --appendonly no --daemonize no \
   --dir "$dir/redis" --logfile "$dir/redis/redis.log") &
