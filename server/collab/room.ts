@@ -71,7 +71,17 @@ export const CLUSTER_ORIGIN = Symbol('matchloom-cluster-update');
  */
 const DESCRIBE_DELAY_MS = 200;
 
+/**
+ * Presence (awareness) goes out in batches per room: a change of someone's state (a cursor move, a
+ * selection, a leave) within AWARENESS_CHANGE_MS, a renewal (the same state with a newer clock, which every
+ * client sends every 15 s) within AWARENESS_RENEW_MS. A room of 100 people renewing at once costs about 100
+ * sends, not 100 × 100.
+ */
+const AWARENESS_CHANGE_MS = 20;
+const AWARENESS_RENEW_MS = 1_000;
+
 type RoomState = 'open' | 'closing' | 'closed';
+type AwarenessChanges = { added: number[]; updated: number[]; removed: number[] };
 
 /** True when applying the update would change nothing (every struct known, every deletion done). */
 export function updateIsRedundant(doc: Y.Doc, decoded: ReturnType<typeof Y.decodeUpdate>): boolean {
@@ -129,6 +139,10 @@ export class Room {
   /** Whose edits since `lastSnapshot` are still to be described, and the timer that will. */
   private describeUser: string | null = null;
   private describeTimer: NodeJS.Timeout | null = null;
+  /** Awareness client ids whose state is still to be sent, and when the timer that sends them fires. */
+  private readonly awarenessDue = new Set<number>();
+  private awarenessTimer: NodeJS.Timeout | null = null;
+  private awarenessTimerAt = Infinity;
   /** The document changed by another process's edit since `lastSnapshot` was read. */
   private snapshotStale = false;
   /** With other processes: the `room_updates` ids this copy holds (loaded, stored here or relayed). */
@@ -150,6 +164,7 @@ export class Room {
     this.lastSnapshot = designSnapshot(doc);
     this.awareness = new awarenessProtocol.Awareness(doc);
     this.awareness.setLocalState(null);
+    this.awareness.on('change', this.onAwarenessChange);
     this.awareness.on('update', this.onAwarenessUpdate);
     doc.on('update', this.onDocUpdate);
   }
@@ -310,7 +325,9 @@ export class Room {
     else if (this.describeTimer) clearTimeout(this.describeTimer);
     if (opts.compact && this.sinceCompaction > 0) await this.compact();
     this.deps.cluster?.leaveRoom(this.id);
+    this.awareness.off('change', this.onAwarenessChange);
     this.awareness.off('update', this.onAwarenessUpdate);
+    if (this.awarenessTimer) clearTimeout(this.awarenessTimer);
     this.awareness.destroy();
     this.doc.off('update', this.onDocUpdate);
     this.doc.destroy();
@@ -406,11 +423,27 @@ export class Room {
     }
   }
 
-  private readonly onAwarenessUpdate = (changes: { added: number[]; updated: number[]; removed: number[] }): void => {
-    const changed = changes.added.concat(changes.updated, changes.removed);
-    if (changed.length === 0) return;
+  private readonly onAwarenessChange = (changes: AwarenessChanges): void => this.sendAwarenessSoon(changes, AWARENESS_CHANGE_MS);
+  private readonly onAwarenessUpdate = (changes: AwarenessChanges): void => this.sendAwarenessSoon(changes, AWARENESS_RENEW_MS);
+
+  private sendAwarenessSoon(changes: AwarenessChanges, withinMs: number): void {
+    const before = this.awarenessDue.size;
+    for (const ids of [changes.added, changes.updated, changes.removed]) for (const id of ids) this.awarenessDue.add(id);
+    if (this.awarenessDue.size === before && withinMs >= AWARENESS_RENEW_MS) return;
+    const at = performance.now() + withinMs;
+    if (this.awarenessTimer && this.awarenessTimerAt <= at) return;
+    if (this.awarenessTimer) clearTimeout(this.awarenessTimer);
+    this.awarenessTimerAt = at;
+    this.awarenessTimer = setTimeout(this.sendAwareness, withinMs);
+  }
+
+  private readonly sendAwareness = (): void => {
+    this.awarenessTimer = null;
+    this.awarenessTimerAt = Infinity;
+    if (this.awarenessDue.size === 0 || this.state === 'closed') return;
+    const msg = awarenessMessage(this.awareness, [...this.awarenessDue]);
+    this.awarenessDue.clear();
     // To every socket, the sender too: the y-websocket client treats 30 s without a message as a dead link.
-    const msg = awarenessMessage(this.awareness, changed);
     for (const c of this.conns) c.send(msg);
   };
 
