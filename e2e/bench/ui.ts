@@ -159,11 +159,12 @@ function row(name: string, target: number, r: { ms: number[]; missed: number }) 
 }
 
 /**
- * Where the tuner's time goes, per event: pointer event → the design reaching useAnalysis
- * ("requested"; the document edit and a React render), → its result back from the engine worker
- * ("analysed"; waiting behind the previous request plus the analysis), → the chart drawn.
+ * Where a page's time goes, per tuner event: pointer event → the design reaching useAnalysis
+ * ("requested"; for the tuner the document edit, for the observer also the trip through the server),
+ * → its result back from the engine worker ("analysed"; waiting behind the previous request, the
+ * worker's turn and the main thread's), → the chart drawn.
  */
-function breakdown(events: { t: number }[], log: PageLog) {
+function breakdown(who: string, events: { t: number }[], log: PageLog) {
   const toReq: number[] = [];
   const toResult: number[] = [];
   const toDraw: number[] = [];
@@ -184,7 +185,7 @@ function breakdown(events: { t: number }[], log: PageLog) {
   };
   const analysedSeqs = log.analysed.length;
   const requested = log.requested.length;
-  console.log(`\ntuner breakdown (ms): requests ${requested}, results ${analysedSeqs} (the rest superseded while waiting)`);
+  console.log(`\n${who} breakdown (ms): requests ${requested}, results ${analysedSeqs} (the rest superseded while waiting)`);
   console.log(`  event → design reaches useAnalysis   ${stat(toReq)}`);
   console.log(`  → result back from the engine        ${stat(toResult)}`);
   console.log(`  → chart drawn                        ${stat(toDraw)}`);
@@ -331,7 +332,7 @@ async function main() {
     if (args.trace)
       await browser.startTracing(a.page, {
         path: args.trace,
-        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink', 'cc', 'toplevel', 'v8.execute', 'renderer.scheduler', 'gpu', 'skia'],
+        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink', 'cc', 'toplevel', 'v8.execute', 'renderer.scheduler', 'gpu', 'skia', 'viz'],
       });
     for (const cdp of cdps) {
       await cdp.send('Profiler.enable');
@@ -392,7 +393,10 @@ async function main() {
     row('tuner: pointer event → chart and plot redrawn', 16, both);
     row('observer: tuner’s event → chart redrawn', 50, chartB);
 
-    breakdown(events, logA);
+    const span = events.length > 1 ? events[events.length - 1].t - events[0].t : 0;
+    console.log(`\n  the drag took ${(span / 1000).toFixed(1)} s: one value-changing event every ${(span / Math.max(1, events.length - 1)).toFixed(1)} ms on average`);
+    breakdown('tuner', events, logA);
+    breakdown('observer', events, logB);
 
     for (const s of [a, b]) s.assertClean();
     if (args['keep-screens']) {

@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { cleanup, render, renderHook, screen, act } from '@testing-library/react';
+import { cleanup, render, renderHook, screen, act, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import * as Y from 'yjs';
@@ -12,7 +12,7 @@ import { ElementInspector, type ElementActions } from '../../client/features/wor
 import { FiguresPanel } from '../../client/features/workspace/figures/figures-panel';
 import { useLocalUndo } from '../../client/features/workspace/collab/use-local-undo';
 import { useDesignEdits } from '../../client/features/workspace/collab/use-design-edits';
-import { useRoomDesign } from '../../client/features/workspace/collab/use-room-design';
+import { LIVE_RENDER_INTERVAL_MS, useRoomDesign } from '../../client/features/workspace/collab/use-room-design';
 
 afterEach(() => cleanup());
 
@@ -217,7 +217,7 @@ describe('per-user undo through the screen’s edits', () => {
 });
 
 describe('useRoomDesign', () => {
-  it('keeps the last good design and names the problem when a peer writes nonsense', () => {
+  it('keeps the last good design and names the problem when a peer writes nonsense', async () => {
     const doc = createDesignDoc(whipE12Design());
     const hook = renderHook(() => useRoomDesign(doc, true));
     expect(hook.result.current.design?.elements).toHaveLength(2);
@@ -225,8 +225,33 @@ describe('useRoomDesign', () => {
     expect(hook.result.current.error).toMatch(/^elements\[1\]\.value: must be a positive number of farads/);
     expect(hook.result.current.design?.elements[1]).toMatchObject({ id: 'c-shunt', value: 12e-12 });
     act(() => setElementField(doc, 'c-shunt', 'value', 15e-12));
-    expect(hook.result.current.error).toBeNull();
+    // (a design right after another renders once the live-render interval has passed)
+    await waitFor(() => expect(hook.result.current.error).toBeNull());
     expect(hook.result.current.design?.elements[1]).toMatchObject({ value: 15e-12 });
+  });
+
+  it('shows a burst of designs at most once per interval, and always the last one', async () => {
+    const doc = createDesignDoc(whipE12Design());
+    let renders = 0;
+    const hook = renderHook(() => {
+      renders++;
+      return useRoomDesign(doc, true);
+    });
+    const seen: number[] = [];
+    const stop = hook.result.current.feed.subscribe((d) => void seen.push((d.elements[1] as { value: number }).value));
+    const before = renders;
+    const started = performance.now();
+    // 20 steps of a drag, 5 ms apart: the feed hears each, the screen renders a few times at most
+    for (let i = 1; i <= 20; i++) {
+      act(() => setElementField(doc, 'c-shunt', 'value', (12 + i) * 1e-12));
+      await new Promise((r) => setTimeout(r, 5));
+    }
+    expect(seen).toHaveLength(20);
+    await waitFor(() => expect(hook.result.current.design?.elements[1]).toMatchObject({ value: 32e-12 }));
+    const elapsed = performance.now() - started;
+    expect(renders - before).toBeLessThanOrEqual(Math.ceil(elapsed / LIVE_RENDER_INTERVAL_MS) + 1);
+    expect(renders - before).toBeLessThan(20);
+    stop();
   });
 
   it('does not call an empty document an error before it has synced', () => {
@@ -235,17 +260,17 @@ describe('useRoomDesign', () => {
     expect(hook.result.current.error).toBeNull();
   });
 
-  it('tells its feed of each new design inside the document update, before React renders it', () => {
+  it('tells its feed of each new design inside the document update, before React renders it', async () => {
     const doc = createDesignDoc(whipE12Design());
     const hook = renderHook(() => useRoomDesign(doc, true));
     const seen: number[] = [];
-    const stop = hook.result.current.feed.subscribe((d) => seen.push((d.elements[1] as { value: number }).value));
+    const stop = hook.result.current.feed.subscribe((d) => void seen.push((d.elements[1] as { value: number }).value));
     setElementField(doc, 'c-shunt', 'value', 15e-12);
     // no act(): the listener ran synchronously with the edit
     expect(seen).toEqual([15e-12]);
     stop();
     act(() => setElementField(doc, 'c-shunt', 'value', 18e-12));
     expect(seen).toEqual([15e-12]);
-    expect(hook.result.current.design?.elements[1]).toMatchObject({ value: 18e-12 });
+    await waitFor(() => expect(hook.result.current.design?.elements[1]).toMatchObject({ value: 18e-12 }));
   });
 });

@@ -84,13 +84,16 @@ export function useAnalysisStore(design: Design | null, client: EngineClient = g
     };
   }, [scheduler]);
 
-  /** Send `design` unless the same content went last; its result draws at once (not on a later task). */
+  /**
+   * Send `design` unless the same content went last; its result draws at once (not on a later task).
+   * Returns a promise settled once that result is drawn (or superseded), for the design feed.
+   */
   const send = useCallback(
-    (design: Design, key: string) => {
-      if (key === sentKey.current) return;
+    (design: Design, key: string): Promise<void> | undefined => {
+      if (key === sentKey.current) return undefined;
       sentKey.current = key;
       markStage('requested', scheduler.issued + 1);
-      void scheduler.request(design).then((outcome) => {
+      return scheduler.request(design).then((outcome) => {
         if (outcome.status !== 'stale') markStage('analysed', outcome.seq);
         if (!alive.current || outcome.status === 'stale') return;
         const pending = scheduler.busy;
@@ -106,9 +109,9 @@ export function useAnalysisStore(design: Design | null, client: EngineClient = g
   useEffect(() => {
     if (!feed) return;
     const stop = feed.subscribe((d) => {
-      if (!alive.current) return;
+      if (!alive.current) return undefined;
       fed.current = true;
-      send(d, JSON.stringify(d));
+      return send(d, JSON.stringify(d));
     });
     return () => {
       stop();

@@ -8,10 +8,10 @@
  * - onCursorMove(Γ) reports the pointer in the Γ plane (null on leave) for presence; `cursors` draws
  *   other people's pointers.
  *
- * Three Konva layers: the grid (cached bitmap, redrawn only on size/view/grid options), the traces
- * (one shape drawing the trace model, trace-drawing.ts; redrawn synchronously, and only, when a new
- * model is built: a result, the view, a selection, an overlay) and the pointer layer (hover,
- * cursors). A new result re-renders this component but not the Konva stage: react-konva reconciles
+ * Two Konva layers: the chart (the grid, cached as one bitmap rebuilt only on size/view/grid
+ * options, under one shape drawing the trace model, trace-drawing.ts; redrawn synchronously when a
+ * new model is built: a result, the view, a selection, an overlay) and the pointer layer (hover,
+ * cursors; hidden while empty). A new result re-renders this component but not the Konva stage: react-konva reconciles
  * the stage only when the grid, the cursors or the hover change.
  */
 import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type RefObject } from 'react';
@@ -126,7 +126,6 @@ function SmithChartView(props: SmithChartProps) {
   );
 
   const gridGroup = useRef<Konva.Group>(null);
-  const gridLayer = useRef<Konva.Layer>(null);
   const traceLayer = useRef<Konva.Layer>(null);
 
   // Cache the grid as one bitmap after it changes (and again once the web font has loaded).
@@ -134,7 +133,7 @@ function SmithChartView(props: SmithChartProps) {
     const g = gridGroup.current;
     if (!g) return;
     cacheGrid(g, grid.width, grid.height);
-    gridLayer.current?.batchDraw();
+    traceLayer.current?.batchDraw();
   }, [grid]);
   useEffect(() => {
     if (typeof document === 'undefined' || !document.fonts) return;
@@ -142,7 +141,7 @@ function SmithChartView(props: SmithChartProps) {
     void document.fonts.ready.then(() => {
       if (!live || !gridGroup.current) return;
       cacheGrid(gridGroup.current, latest.current.props.width, latest.current.props.height);
-      gridLayer.current?.batchDraw();
+      traceLayer.current?.batchDraw();
     });
     return () => {
       live = false;
@@ -290,7 +289,6 @@ function SmithChartView(props: SmithChartProps) {
           hover={hover}
           sceneFunc={sceneFunc}
           gridGroup={gridGroup}
-          gridLayer={gridLayer}
           traceLayer={traceLayer}
         />
       </div>
@@ -316,23 +314,23 @@ interface ChartStageProps {
   hover: Hover | null;
   sceneFunc: (context: Konva.Context) => void;
   gridGroup: RefObject<Konva.Group | null>;
-  gridLayer: RefObject<Konva.Layer | null>;
   traceLayer: RefObject<Konva.Layer | null>;
 }
 
 /** The Konva stage; re-rendered (and reconciled by react-konva) only when one of its props changes. */
-const ChartStage = memo(function ChartStage({ width, height, grid, cursors, hover, sceneFunc, gridGroup, gridLayer, traceLayer }: ChartStageProps) {
+const ChartStage = memo(function ChartStage({ width, height, grid, cursors, hover, sceneFunc, gridGroup, traceLayer }: ChartStageProps) {
+  // The cached grid and the traces share one canvas (a redraw copies the grid's bitmap under the
+  // traces), and the pointer layer's canvas is hidden while it has nothing to show: every stacked
+  // canvas is composited again at each frame, in software on these machines.
   return (
     <Stage width={width} height={height} listening={false}>
-      <Layer ref={gridLayer} listening={false}>
+      <Layer ref={traceLayer} listening={false}>
         <Group ref={gridGroup}>
           <GridShapes grid={grid} />
         </Group>
-      </Layer>
-      <Layer ref={traceLayer} listening={false}>
         <Shape sceneFunc={sceneFunc} listening={false} perfectDrawEnabled={false} />
       </Layer>
-      <Layer listening={false}>
+      <Layer listening={false} visible={cursors.length > 0 || hover !== null}>
         <PointerShapes cursors={cursors} hover={hover} />
       </Layer>
     </Stage>

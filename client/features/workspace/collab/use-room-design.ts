@@ -14,9 +14,15 @@ export interface RoomDesignState {
   error: string | null;
 }
 
-/** Listeners told of each new design synchronously, inside the document update (before React renders it). */
+/**
+ * Told of each new design synchronously, inside the document update (before React renders it). A
+ * listener may return a promise of its work for that design (the live analysis: settled once its
+ * result is drawn); the screen's render of the design waits for it (see LIVE_RENDER_MAX_WAIT_MS).
+ */
+export type DesignListener = (design: Design) => void | Promise<unknown>;
+
 export interface DesignFeed {
-  subscribe(listener: (design: Design) => void): () => void;
+  subscribe(listener: DesignListener): () => void;
 }
 
 export interface RoomDesign extends RoomDesignState {
@@ -78,12 +84,99 @@ export function shareUnchanged(prev: Design | null, next: Design): Design {
 }
 
 /**
+ * While new designs arrive closer together than this (a value being dragged here, or a peer's drag
+ * relayed), the screen re-renders the design at most once per interval, the newest one, and the
+ * last of a burst always; a design after a quiet spell renders at once. The feed still gets every
+ * design synchronously, so the live analysis, the Smith chart and the sweep plot follow each step:
+ * only the rest of the screen (chain canvas labels, side panel) trails by up to this much. A render
+ * of the whole workspace per pointer event would otherwise hold the main thread for most of the
+ * time between two events, and the analysis results would queue behind it.
+ */
+export const LIVE_RENDER_INTERVAL_MS = 100;
+
+/**
+ * The render of a new design also waits until the feed's listeners have finished with it (the
+ * chart and the plot have drawn its analysis), so that it never stands between an edit and its
+ * drawing; but never longer than this after it was due.
+ */
+export const LIVE_RENDER_MAX_WAIT_MS = 150;
+
+export interface RenderThrottle {
+  /** a new design; `settled` resolves when the feed's work for it is done (null: nothing to wait for) */
+  offer(design: Design, settled: Promise<unknown> | null): void;
+  /** render the waiting design now */
+  flush(): void;
+  dispose(): void;
+}
+
+/**
+ * Renders (calls `show` with) the newest offered design: once its `settled` has resolved (or
+ * `maxWaitMs` has passed) and at least `intervalMs` after the previous render. A design offered
+ * after a quiet spell renders as soon as its work settles.
+ */
+export function createRenderThrottle(
+  show: (design: Design) => void,
+  { intervalMs = LIVE_RENDER_INTERVAL_MS, maxWaitMs = LIVE_RENDER_MAX_WAIT_MS } = {},
+): RenderThrottle {
+  let shownAt = Number.NEGATIVE_INFINITY;
+  let timer: ReturnType<typeof setTimeout> | null = null;
+  let waiting: { design: Design; settled: Promise<unknown> | null } | null = null;
+  /** true while a due render waits for the newest design's work */
+  let holding = false;
+  let disposed = false;
+
+  const render = () => {
+    const next = waiting;
+    waiting = null;
+    if (!next || disposed) return;
+    shownAt = performance.now();
+    show(next.design);
+  };
+  const due = async () => {
+    timer = null;
+    holding = true;
+    const deadline = performance.now() + maxWaitMs;
+    // wait for the newest design's work; a newer design arriving meanwhile is waited for in turn
+    for (let w = waiting; w?.settled && !disposed; ) {
+      const left = deadline - performance.now();
+      if (left <= 0) break;
+      let stop: ReturnType<typeof setTimeout> | undefined;
+      await Promise.race([w.settled.catch(() => undefined), new Promise((r) => (stop = setTimeout(r, left)))]);
+      clearTimeout(stop);
+      if (waiting === w) break;
+      w = waiting;
+    }
+    holding = false;
+    render();
+  };
+  return {
+    offer(design, settled) {
+      waiting = { design, settled };
+      if (timer || holding || disposed) return;
+      const wait = intervalMs - (performance.now() - shownAt);
+      if (wait <= 0) void due();
+      else timer = setTimeout(() => void due(), wait);
+    },
+    flush() {
+      if (timer) clearTimeout(timer);
+      timer = null;
+      render();
+    },
+    dispose() {
+      disposed = true;
+      if (timer) clearTimeout(timer);
+      timer = null;
+    },
+  };
+}
+
+/**
  * `ready` says the document holds the room's content (it has synced once); before that an empty
  * document is not an error.
  */
 export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
   const [state, setState] = useState<RoomDesignState>({ design: null, error: null });
-  const listeners = useMemo(() => new Set<(design: Design) => void>(), []);
+  const listeners = useMemo(() => new Set<DesignListener>(), []);
   const feed = useMemo<DesignFeed>(
     () => ({
       subscribe(listener) {
@@ -103,6 +196,12 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
     // keeps the previous one's unchanged parts (same objects), so memoised views of them skip work.
     let lastKey: string | null = null;
     let last: Design | null = null;
+    // the screen's renders of new designs: after their analysis is drawn, throttled while they stream in
+    const renders = createRenderThrottle((design) =>
+      // The screen's render of a new design may be interrupted (by the chart drawing the analysis
+      // result the feed asked for); the feed already has it.
+      startTransition(() => setState({ design, error: null })),
+    );
     const refresh = () => {
       const key = inputKey(doc);
       if (key !== null && key === lastKey) return;
@@ -111,12 +210,16 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
         lastKey = key;
         const design = shareUnchanged(last, reading.design);
         last = design;
-        for (const listener of listeners) listener(design);
-        // The screen's render of a new design may be interrupted (by the chart drawing the analysis
-        // result the feed asked for); the feed already has it.
-        startTransition(() => setState({ design, error: null }));
+        const work: Promise<unknown>[] = [];
+        for (const listener of listeners) {
+          const done = listener(design);
+          if (done) work.push(done);
+        }
+        renders.offer(design, work.length ? Promise.all(work) : null);
       } else {
         lastKey = null;
+        // the last good design a render was waiting for shows with the banner
+        renders.flush();
         if (ready) setState((s) => ({ design: s.design, error: reading.message }));
       }
     };
@@ -124,6 +227,7 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
     doc.on('update', refresh);
     return () => {
       doc.off('update', refresh);
+      renders.dispose();
     };
   }, [doc, ready, listeners]);
 
