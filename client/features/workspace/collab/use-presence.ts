@@ -17,6 +17,13 @@ export interface Presence {
 
 const CURSOR_INTERVAL_MS = 50;
 
+/**
+ * Others' presence re-renders the screen at most this often (their pointers move all the time; a
+ * render of the whole workspace per awareness message would hold the main thread while their
+ * edits wait to be analysed and drawn). The first change after a quiet spell shows at once.
+ */
+export const PEERS_RENDER_INTERVAL_MS = 100;
+
 export function usePresence(provider: WebsocketProvider | null, me: PresenceUser | null): Presence {
   const [peers, setPeers] = useState<Peer[]>([]);
   const pendingCursor = useRef<{ cursor: PresenceCursor | null; timer: ReturnType<typeof setTimeout> | null; last: number }>({
@@ -28,16 +35,26 @@ export function usePresence(provider: WebsocketProvider | null, me: PresenceUser
   useEffect(() => {
     if (!provider) return;
     const awareness = provider.awareness;
-    const refresh = () => setPeers(peersFrom(awareness.getStates() as Map<number, unknown>, awareness.clientID));
+    let shownAt = Number.NEGATIVE_INFINITY;
+    let timer: ReturnType<typeof setTimeout> | null = null;
+    const refresh = () => {
+      timer = null;
+      shownAt = performance.now();
+      setPeers(peersFrom(awareness.getStates() as Map<number, unknown>, awareness.clientID));
+    };
     // Our own pointer moves change only our own state: nothing to redraw for that.
     const onChange = (changes: { added: number[]; updated: number[]; removed: number[] }) => {
       const ids = [...changes.added, ...changes.updated, ...changes.removed];
-      if (ids.some((id) => id !== awareness.clientID)) refresh();
+      if (!ids.some((id) => id !== awareness.clientID) || timer) return;
+      const wait = PEERS_RENDER_INTERVAL_MS - (performance.now() - shownAt);
+      if (wait <= 0) refresh();
+      else timer = setTimeout(refresh, wait);
     };
     awareness.on('change', onChange);
     refresh();
     return () => {
       awareness.off('change', onChange);
+      if (timer) clearTimeout(timer);
       setPeers([]);
     };
   }, [provider]);
