@@ -332,7 +332,7 @@ async function main() {
     if (args.trace)
       await browser.startTracing(a.page, {
         path: args.trace,
-        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink', 'cc', 'toplevel', 'v8.execute', 'renderer.scheduler', 'gpu', 'skia', 'viz'],
+        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink', 'cc', 'toplevel', 'v8.execute', 'renderer.scheduler', 'gpu', 'skia', 'viz', 'blink.user_timing'],
       });
     for (const cdp of cdps) {
       await cdp.send('Profiler.enable');

@@ -10,7 +10,7 @@
  *           a probe that reads the value it is dragging, e.g. d => d.elements[3].value)
  * It also calls window.__mlOnDrawn?.(which, record) and leaves a performance mark "ml:chart-drawn" /
  * "ml:plot-drawn". For a breakdown, useAnalysis calls window.__mlOnStage?.(stage, { at, seq }) with
- * stage "requested" (the design went to the engine) and "analysed" (its result came back). Nothing is recorded until the page defines window.__mlDrawn (the bench does), so
+ * stage "requested" (the design went to the engine) and "analysed" (its result came back), with performance marks "ml:requested" / "ml:analysed". Nothing is recorded until the page defines window.__mlDrawn (the bench does), so
  * normal use pays one property check per draw.
  */
 import type { Design } from '../../../../shared/rf/design';
@@ -65,5 +65,6 @@ export function markStage(stage: 'requested' | 'analysed', seq: number): void {
   if (typeof window === 'undefined') return;
   const w = window as unknown as BenchWindow;
   if (!w.__mlDrawn || !w.__mlOnStage) return;
+  performance.mark(`ml:${stage}`);
   w.__mlOnStage(stage, { at: epochNow(), seq });
 }

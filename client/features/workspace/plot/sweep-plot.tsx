@@ -136,6 +136,29 @@ function decorations(u: uPlot, m: PlotModel): void {
   ctx.restore();
 }
 
+/**
+ * A drag that began elsewhere (a value tuned on the chain canvas) passes over the plot without
+ * moving its cursor and read-out: that would cost a cursor update and a React render per pointer
+ * event while the plot is being redrawn for the tuned value. A drag begun on the plot (frequency
+ * zoom) works as usual.
+ */
+function passOverWhileDraggingElsewhere(): uPlot.Cursor.Bind {
+  let pressedHere = false;
+  // as uPlot's own bindings: a press with the main button, events on the plot's own area
+  return {
+    mousedown: (_u, targ, handler, onlyTarg = true) => (e) => {
+      if (e.button !== 0 || (onlyTarg && e.target !== targ)) return null;
+      pressedHere = true;
+      return handler(e);
+    },
+    mousemove: (_u, targ, handler, onlyTarg = true) => (e) => {
+      if (e.buttons === 0) pressedHere = false;
+      else if (!pressedHere) return null;
+      return onlyTarg && e.target !== targ ? null : handler(e);
+    },
+  };
+}
+
 function plotOptions(m: PlotModel, width: number, height: number, model: { current: PlotModel }, onDrawn: () => void, onCursor: (i: number | null) => void): uPlot.Options {
   const series: uPlot.Series[] = [
     {},
@@ -162,7 +185,11 @@ function plotOptions(m: PlotModel, width: number, height: number, model: { curre
     width,
     height: Math.max(60, height - READOUT_HEIGHT),
     legend: { show: false },
-    cursor: { drag: { x: true, y: false, setScale: true }, points: { size: 7, fill: C.paper, stroke: C.traceDeep, width: 2 } },
+    cursor: {
+      drag: { x: true, y: false, setScale: true },
+      points: { size: 7, fill: C.paper, stroke: C.traceDeep, width: 2 },
+      bind: passOverWhileDraggingElsewhere(),
+    },
     scales: {
       x: { time: false },
       y: { range: () => model.current.yRange },
