@@ -181,7 +181,9 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
   db.pragma('busy_timeout = 0'); // never block the event loop on a lock
   // Checkpoints (the fsyncs) run on a thread of their own, so this connection's commits never wait on the disk.
   db.pragma('wal_autocheckpoint = 0');
-  const checkpointer = startCheckpointer(filename);
+  // Commits on this connection since start, for the checkpoint thread to pace itself by.
+  const commits = new Int32Array(new SharedArrayBuffer(4));
+  const checkpointer = startCheckpointer(filename, commits);
   // Prepared on first use: the hub may be created before the migrations have run.
   let statements: ReturnType<typeof prepare> | null = null;
   function prepare() {
@@ -213,7 +215,9 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
   /** `write()`, or `whenBusy` if another connection holds the write lock (never waits for it). */
   function unlessBusy<T>(write: () => T, whenBusy: T): T {
     try {
-      return write();
+      const out = write();
+      Atomics.add(commits, 0, 1);
+      return out;
     } catch (e) {
       if (busy(e)) return whenBusy;
       throw e;
@@ -261,24 +265,48 @@ function blob(u: Uint8Array): Buffer {
   return Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
 }
 
-/** Milliseconds between WAL checkpoints on the checkpoint thread. */
-export const CHECKPOINT_INTERVAL_MS = 1000;
+/**
+ * WAL checkpoints run on a thread of their own, paced by the room writer's commits: every
+ * CHECKPOINT_POLL_MS the thread checkpoints if at least CHECKPOINT_MIN_COMMITS commits have been made
+ * since its last checkpoint, or if CHECKPOINT_MAX_MS have passed. A checkpoint's fsync makes the
+ * writer's appends meanwhile slower (measured: insert p95 0.2 ms → 0.7–0.9 ms, p99 up to 12 ms with a
+ * checkpoint every second at 10 edits/s), so a quiet room checkpoints every 30 s, not every second,
+ * while a busy server still checkpoints about once a second (the WAL stays a few MB).
+ */
+export const CHECKPOINT_POLL_MS = 1000;
+export const CHECKPOINT_MIN_COMMITS = 250;
+export const CHECKPOINT_MAX_MS = 30_000;
 
 const CHECKPOINTER = `
 const { workerData } = require('node:worker_threads');
 const Database = require(workerData.module);
 const db = new Database(workerData.file);
 db.pragma('busy_timeout = 1000');
+let seen = 0;
+let last = Date.now();
 setInterval(() => {
-  try { db.pragma('wal_checkpoint(PASSIVE)'); } catch { /* busy or gone: next time */ }
-}, workerData.intervalMs);
+  const n = Atomics.load(workerData.commits, 0);
+  if (n - seen < workerData.minCommits && Date.now() - last < workerData.maxMs) return;
+  try {
+    db.pragma('wal_checkpoint(PASSIVE)');
+    seen = n;
+    last = Date.now();
+  } catch { /* busy or gone: next time */ }
+}, workerData.pollMs);
 `;
 
-/** A worker thread that checkpoints the WAL of `file` every CHECKPOINT_INTERVAL_MS (PASSIVE: never blocks writers). */
-function startCheckpointer(file: string): Worker {
+/** The checkpoint thread for `file` (PASSIVE checkpoints: they never block writers). */
+function startCheckpointer(file: string, commits: Int32Array): Worker {
   const worker = new Worker(CHECKPOINTER, {
     eval: true,
-    workerData: { file, module: createRequire(import.meta.url).resolve('better-sqlite3'), intervalMs: CHECKPOINT_INTERVAL_MS },
+    workerData: {
+      file,
+      commits,
+      module: createRequire(import.meta.url).resolve('better-sqlite3'),
+      pollMs: CHECKPOINT_POLL_MS,
+      minCommits: CHECKPOINT_MIN_COMMITS,
+      maxMs: CHECKPOINT_MAX_MS,
+    },
   });
   worker.on('error', () => {}); // a failed checkpointer only means the main connections checkpoint instead
   worker.unref();
