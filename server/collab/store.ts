@@ -10,7 +10,7 @@ import { Worker } from 'node:worker_threads';
 import Database from 'better-sqlite3';
 import type { Knex } from 'knex';
 import { createDesignDoc, readDesign } from '../../shared/collab/schema';
-import { isPostgres } from '../db';
+import { checkpointOnThread, isPostgres } from '../db';
 import { DesignError, type Design, type DesignInput } from '../../shared/rf/design';
 
 export interface StoredDoc {
@@ -184,6 +184,8 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
   // Commits on this connection since start, for the checkpoint thread to pace itself by.
   const commits = new Int32Array(new SharedArrayBuffer(4));
   const checkpointer = startCheckpointer(filename, commits);
+  // The only checkpoints: the pooled Knex connections' automatic ones would fsync on the event loop.
+  const ownCheckpoints = checkpointOnThread(knex, filename);
   // Prepared on first use: the hub may be created before the migrations have run.
   let statements: ReturnType<typeof prepare> | null = null;
   function prepare() {
@@ -255,6 +257,7 @@ export function openSyncUpdateWriter(knex: Knex): SyncUpdateWriter | null {
     },
     close() {
       void checkpointer.terminate();
+      ownCheckpoints();
       if (db.open) db.close();
     },
   };

@@ -28,6 +28,14 @@ import { Api, designWith, tempDir, type Person } from '../collab/helpers/world';
 /** Seconds of edits per server per scenario (in 1 s windows, alternating with the other server). */
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 6);
 const RATE_HZ = 5;
+/**
+ * Clients join over this span, as people do, not in one instant. Every y-websocket client renews its
+ * presence 15 s after its last renewal, checking every 3 s from when it was made, and (y-websocket 3.x)
+ * sends back every presence update it receives; 100 clients made in the same millisecond renew in one
+ * burst, which this process, holding all of them, takes as a 200-300 ms stall that lands in whichever
+ * server's window is running (seen with both servers). Spread over one check period, renewals are spread too.
+ */
+const JOIN_SPREAD_MS = 3000;
 
 interface Scenario {
   name: string;
@@ -128,9 +136,11 @@ async function setUp(mode: 'matchloom' | 'bare', s: Scenario, proc: ServerProc, 
   let measuring = false;
   const providers: WebsocketProvider[] = [];
 
+  const total = s.rooms * s.clientsPerRoom;
   const clients = await Promise.all(
     roomIds.flatMap((roomId, r) =>
       Array.from({ length: s.clientsPerRoom }, async (_, c) => {
+        await new Promise((res) => setTimeout(res, ((r * s.clientsPerRoom + c) / total) * JOIN_SPREAD_MS));
         const editor = c < s.editorsPerRoom;
         const person = editor ? people.owner : people.watcher;
         const cookie = mode === 'matchloom' ? person.cookie : '';

@@ -37,4 +37,18 @@ describe('WAL checkpoints', () => {
     writer.destroy();
     reader.destroy();
   });
+
+  it('are the thread\'s alone: the pooled Knex connection makes none of its own (it would fsync on the event loop)', async () => {
+    // Common practice (SQLite's wal_autocheckpoint pragma: 0 turns the automatic checkpoint off).
+    const rows = (await w.knex.raw('PRAGMA wal_autocheckpoint')) as { wal_autocheckpoint: number }[];
+    expect(rows[0].wal_autocheckpoint).toBe(0);
+    // A connection the pool makes later gets the same setting.
+    const fresh = (await w.knex.client.acquireRawConnection()) as { pragma(s: string, o: { simple: true }): unknown; close(): void };
+    try {
+      await new Promise<void>((resolve, reject) => w.knex.client.config.pool.afterCreate(fresh, (e: Error | null) => (e ? reject(e) : resolve())));
+      expect(fresh.pragma('wal_autocheckpoint', { simple: true })).toBe(0);
+    } finally {
+      fresh.close();
+    }
+  });
 });
