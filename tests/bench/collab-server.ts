@@ -1,7 +1,8 @@
 // One server process for the collab benchmark. `matchloom`: the real server (startServer) on a temp
 // SQLite file. `bare`: a plain y-websocket server (@y/websocket-server setupWSConnection; no auth, no
 // persistence). Prints {"port": n}; answers IPC "stats" with its CPU time and memory (after a GC);
-// with BENCH_PROFILE set, IPC "profile-resume" / "profile-pause" bracket a CPU profile written there.
+// with BENCH_PROFILE set, IPC "profile-resume" / "profile-pause" bracket a CPU profile written there
+// (sampled every BENCH_PROFILE_INTERVAL_US µs, default 100; 400 distorts the timings less).
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { writeFileSync } from 'node:fs';
@@ -40,7 +41,7 @@ const profiler = process.env.BENCH_PROFILE ? new Session() : null;
 if (profiler) {
   profiler.connect();
   await profiler.post('Profiler.enable');
-  await profiler.post('Profiler.setSamplingInterval', { interval: 100 });
+  await profiler.post('Profiler.setSamplingInterval', { interval: Number(process.env.BENCH_PROFILE_INTERVAL_US ?? 100) });
 }
 let profiling = false;
 process.on('message', async (msg) => {
