@@ -4,8 +4,8 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { insertElement, moveElement, orderedElementIds, readDesignInput, readElement, removeElement, setElementField } from '../../shared/collab/schema';
 import { parseDesign } from '../../shared/rf/design';
-import { canonicalJson, converged, designWith, docJson, prng, sleep, until, type Peer, type Person } from '../collab/helpers/world';
-import { describeScale, freshDatabase, scaleTitle, startProcess, stopAll, type Process } from './helpers/cluster';
+import { canonicalJson, converged, docJson, prng, sleep, until, type Peer, type Person } from '../collab/helpers/world';
+import { describeScale, scaleTitle, stopAll, twoProcessRoom, type Process } from './helpers/cluster';
 
 let A: Process;
 let B: Process;
@@ -17,22 +17,15 @@ const peers: Peer[] = [];
 
 describeScale(scaleTitle('clients on two processes'), () => {
   beforeAll(async () => {
-    const db = await freshDatabase('converge');
-    A = await startProcess('A', db);
-    B = await startProcess('B', db);
-    owner = await A.api.signUp('Owner');
-    tuner = await B.api.signUp('Tuner');
-    second = await A.api.signUp('Second Tuner');
-    roomId = await A.api.createRoom(
-      owner,
-      designWith([
+    ({ A, B, owner, roomId, people: { tuner, second } } = await twoProcessRoom(
+      'converge',
+      { tuner: { name: 'Tuner', role: 'tuner', via: 'B' }, second: { name: 'Second Tuner', role: 'tuner' } },
+      [
         { id: 's0', kind: 'series-l', value: 3.3e-9 },
         { id: 's1', kind: 'shunt-c', value: 0.9e-12 },
         { id: 's2', kind: 'shunt-c', value: 1.2e-12 },
-      ]),
-    );
-    await B.api.addMember(owner, roomId, tuner, 'tuner');
-    await A.api.addMember(owner, roomId, second, 'tuner');
+      ],
+    ));
   }, 120_000);
   afterAll(async () => {
     for (const p of peers.splice(0)) p.destroy();

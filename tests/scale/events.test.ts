@@ -3,8 +3,8 @@
 // room log a client of the other receives.
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { setElementField } from '../../shared/collab/schema';
-import { designWith, sleep, until, type Peer, type Person } from '../collab/helpers/world';
-import { connectEvents, describeScale, freshDatabase, scaleTitle, startProcess, stopAll, type EventClient, type Process } from './helpers/cluster';
+import { sleep, until, type Peer, type Person } from '../collab/helpers/world';
+import { connectEvents, describeScale, scaleTitle, stopAll, twoProcessRoom, type EventClient, type Process } from './helpers/cluster';
 
 let A: Process;
 let B: Process;
@@ -23,21 +23,14 @@ async function client(p: Process, who: Person): Promise<EventClient> {
 
 describeScale(scaleTitle('room events across two processes'), () => {
   beforeAll(async () => {
-    const db = await freshDatabase('events');
-    A = await startProcess('A', db);
-    B = await startProcess('B', db);
-    owner = await A.api.signUp('Owner');
-    tuner = await A.api.signUp('Tuner');
-    observer = await A.api.signUp('Observer');
-    roomId = await A.api.createRoom(
-      owner,
-      designWith([
+    ({ A, B, owner, roomId, people: { tuner, observer } } = await twoProcessRoom(
+      'events',
+      { tuner: { name: 'Tuner', role: 'tuner' }, observer: { name: 'Observer', role: 'observer' } },
+      [
         { id: 'l1', kind: 'series-l', value: 3.3e-9 },
         { id: 'c1', kind: 'shunt-c', value: 1.2e-12 },
-      ]),
-    );
-    await A.api.addMember(owner, roomId, tuner, 'tuner');
-    await A.api.addMember(owner, roomId, observer, 'observer');
+      ],
+    ));
   }, 120_000);
   afterAll(async () => {
     for (const p of peers.splice(0)) p.destroy();

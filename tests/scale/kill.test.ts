@@ -5,8 +5,8 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import * as Y from 'yjs';
 import { insertElement, orderedElementIds, readDesignInput, readElement, setElementField } from '../../shared/collab/schema';
-import { canonicalJson, converged, designWith, docJson, prng, sleep, until, type Peer, type Person } from '../collab/helpers/world';
-import { describeScale, freshDatabase, scaleTitle, startProcess, stopAll, untilDesign, type Process } from './helpers/cluster';
+import { canonicalJson, converged, docJson, prng, sleep, until, type Peer, type Person } from '../collab/helpers/world';
+import { describeScale, scaleTitle, startProcess, stopAll, twoProcessRoom, untilDesign, type Process } from './helpers/cluster';
 
 let db: string;
 let A: Process;
@@ -39,15 +39,11 @@ function missing(from: Y.Doc, to: Y.Doc, names: Map<number, string>): string[] {
 
 describeScale(scaleTitle('one of two processes killed during a burst of edits'), () => {
   beforeAll(async () => {
-    db = await freshDatabase('kill');
-    A = await startProcess('A', db);
-    B = await startProcess('B', db);
-    owner = await A.api.signUp('Owner');
-    tuner = await A.api.signUp('Tuner');
-    watcherPerson = await A.api.signUp('Watcher');
-    roomId = await A.api.createRoom(owner, designWith([{ id: 'c0', kind: 'shunt-c', value: 1e-12 }]));
-    await A.api.addMember(owner, roomId, tuner, 'tuner');
-    await A.api.addMember(owner, roomId, watcherPerson, 'observer');
+    ({ db, A, B, owner, roomId, people: { tuner, watcherPerson } } = await twoProcessRoom(
+      'kill',
+      { tuner: { name: 'Tuner', role: 'tuner' }, watcherPerson: { name: 'Watcher', role: 'observer' } },
+      [{ id: 'c0', kind: 'shunt-c', value: 1e-12 }],
+    ));
   }, 120_000);
   afterAll(async () => {
     for (const p of peers.splice(0)) p.destroy();

@@ -6,7 +6,7 @@ import { COLLAB_CLOSE } from '../../shared/collab/close-codes';
 import { insertElement, readElement, setElementField, writeDesign } from '../../shared/collab/schema';
 import { designWith, sleep, until, type Peer, type Person } from '../collab/helpers/world';
 import { editUpdate, rawClient, syncStep1, syncStep2, updateMsg, type RawClient } from '../collab/helpers/raw';
-import { connectEvents, describeScale, freshDatabase, scaleTitle, startProcess, stopAll, untilDesign, type EventClient, type Process } from './helpers/cluster';
+import { connectEvents, describeScale, scaleTitle, stopAll, twoProcessRoom, untilDesign, type EventClient, type Process } from './helpers/cluster';
 
 let A: Process;
 let B: Process;
@@ -25,24 +25,15 @@ const elementValue = (design: any, id: string) => design.elements.find((e: { id:
 
 describeScale(scaleTitle('roles across two processes'), () => {
   beforeAll(async () => {
-    const db = await freshDatabase('roles');
-    A = await startProcess('A', db);
-    B = await startProcess('B', db);
-    owner = await A.api.signUp('Owner');
-    tuner = await A.api.signUp('Tuner');
-    helper = await A.api.signUp('Helper');
-    observer = await A.api.signUp('Observer');
-    roomId = await A.api.createRoom(
-      owner,
-      designWith([
+    ({ A, B, owner, roomId, people: { tuner, helper, observer } } = await twoProcessRoom(
+      'roles',
+      { tuner: { name: 'Tuner', role: 'tuner' }, helper: { name: 'Helper', role: 'tuner' }, observer: { name: 'Observer', role: 'observer' } },
+      [
         { id: 'l1', kind: 'series-l', value: 3.3e-9 },
         { id: 'c1', kind: 'shunt-c', value: 1.2e-12 },
         { id: 'c2', kind: 'shunt-c', value: 0.9e-12 },
-      ]),
-    );
-    await A.api.addMember(owner, roomId, tuner, 'tuner');
-    await A.api.addMember(owner, roomId, helper, 'tuner');
-    await A.api.addMember(owner, roomId, observer, 'observer');
+      ],
+    ));
   }, 120_000);
   afterAll(async () => {
     for (const p of peers.splice(0)) p.destroy();

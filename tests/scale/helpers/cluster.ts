@@ -14,7 +14,8 @@ import knex from 'knex';
 import { io, type Socket } from 'socket.io-client';
 import { describe } from 'vitest';
 import { ROOM_EVENTS, type JoinReply, type PresencePayload, type RoleChangedPayload, type RoomLogEntry } from '../../../shared/collab/events';
-import { Api, until, type Person } from '../../collab/helpers/world';
+import type { Element } from '../../../shared/rf/design';
+import { Api, designWith, until, type Person } from '../../collab/helpers/world';
 
 const clusterUrl = process.env.DATABASE_URL;
 const redisUrl = process.env.REDIS_URL;
@@ -100,6 +101,38 @@ export async function startProcess(label: string, databaseUrl: string): Promise<
   };
   started.push(p);
   return p;
+}
+
+export interface TwoProcessRoom<N extends string> {
+  db: string;
+  A: Process;
+  B: Process;
+  owner: Person;
+  people: Record<N, Person>;
+  roomId: string;
+}
+
+/**
+ * The usual set-up of a scale test: processes A and B on a fresh database `label`, an owner (signed up
+ * on A) with a room holding `elements`, and each of `members` signed up and added with its role through
+ * its process (`via`, A unless said).
+ */
+export async function twoProcessRoom<N extends string>(
+  label: string,
+  members: Record<N, { name: string; role: 'tuner' | 'observer'; via?: 'A' | 'B' }>,
+  elements: Element[],
+): Promise<TwoProcessRoom<N>> {
+  const db = await freshDatabase(label);
+  const A = await startProcess('A', db);
+  const B = await startProcess('B', db);
+  const through = (via?: 'A' | 'B') => (via === 'B' ? B : A).api;
+  const owner = await A.api.signUp('Owner');
+  const entries = Object.entries(members) as [N, { name: string; role: 'tuner' | 'observer'; via?: 'A' | 'B' }][];
+  const people = {} as Record<N, Person>;
+  for (const [key, m] of entries) people[key] = await through(m.via).signUp(m.name);
+  const roomId = await A.api.createRoom(owner, designWith(elements));
+  for (const [key, m] of entries) await through(m.via).addMember(owner, roomId, people[key], m.role);
+  return { db, A, B, owner, people, roomId };
 }
 
 /** Stop every process started here (SIGTERM, then SIGKILL for any still running after 10 s). */
