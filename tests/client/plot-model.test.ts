@@ -6,6 +6,7 @@ import {
   plotSummary,
   plottedValue,
   RETURN_LOSS_CEILING_DB,
+  yLabelFor,
 } from '../../client/features/workspace/plot/plot-model';
 import { chipAntennaDesign } from './analysis-fixtures';
 
@@ -40,6 +41,10 @@ describe('buildPlotModel', () => {
   it('matches the engine’s return loss point by point and says which way is better on the axis', () => {
     const m = buildPlotModel({ design, result, mode: 'return-loss' });
     expect(m.yLabel).toMatch(/Return loss \(dB\), higher is better/);
+    // Common practice: an axis label is shown whole or shortened, never clipped by a short plot.
+    expect(yLabelFor(m, 400)).toBe(m.yLabel);
+    expect(yLabelFor(m, 150)).toBe('Return loss (dB)');
+    expect(yLabelFor(buildPlotModel({ design, result, mode: 'vswr' }), 150)).toBe('VSWR');
     for (let i = 0; i < m.main.length; i++) expect(m.main[i]).toBeCloseTo(result.returnLossDb[i], 9);
   });
 

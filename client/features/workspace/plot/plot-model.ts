@@ -33,6 +33,8 @@ export interface PlotModel {
   bandwidth: { low: number; high: number } | null;
   yRange: [number, number];
   yLabel: string;
+  /** The y label for a plot too short for `yLabel` (the axis label is written along the plot's height). */
+  yLabelShort: string;
   xLabel: string;
 }
 
@@ -147,6 +149,7 @@ export function buildPlotModel(input: PlotInput): PlotModel {
     bandwidth,
     yRange,
     yLabel: mode === 'return-loss' ? 'Return loss (dB), higher is better' : 'VSWR, lower is better',
+    yLabelShort: mode === 'return-loss' ? 'Return loss (dB)' : 'VSWR',
     xLabel: `Frequency (${unit.label})`,
   };
 }
@@ -171,4 +174,13 @@ export function plotSummary(model: PlotModel, result: AnalysisResult | null): st
 
 function trim(v: number): string {
   return String(Number(v.toPrecision(4)));
+}
+
+/** Pixels per character of the axis labels (12 px Nunito Sans, generous), and the x axis and margins below. */
+const LABEL_CHAR_PX = 6.5;
+const Y_LABEL_MARGIN_PX = 60;
+
+/** The long y label where the plot is tall enough to show it whole, else the short one (never a clipped label). */
+export function yLabelFor(m: Pick<PlotModel, 'yLabel' | 'yLabelShort'>, plotHeight: number): string {
+  return m.yLabel.length * LABEL_CHAR_PX + Y_LABEL_MARGIN_PX <= plotHeight ? m.yLabel : m.yLabelShort;
 }

@@ -14,7 +14,7 @@ import type { AnalysisResult } from '../analysis/engine-types';
 import { markDrawn } from '../analysis/draw-marks';
 import { drawingKeyOf, sameDrawingProps } from '../analysis/drawing-key';
 import { withLowLatencyCanvases } from '../layout/low-latency-canvas';
-import { buildPlotModel, plotSummary, type PlotModel, type SweepPlotMode } from './plot-model';
+import { buildPlotModel, plotSummary, yLabelFor, type PlotModel, type SweepPlotMode } from './plot-model';
 
 export type { SweepPlotMode };
 
@@ -196,7 +196,7 @@ function plotOptions(m: PlotModel, width: number, height: number, model: { curre
     },
     axes: [
       { ...axis(m.xLabel), size: 28, labelSize: 16, labelGap: 0, values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(6)))) },
-      { ...axis(m.yLabel), size: 40, labelSize: 18, labelGap: 0, values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(4)))) },
+      { ...axis(yLabelFor(m, height - READOUT_HEIGHT)), size: 40, labelSize: 18, labelGap: 0, values: (_u, splits) => splits.map((v) => String(Number(v.toPrecision(4)))) },
     ],
     series,
     bands,
@@ -268,7 +268,11 @@ function SweepPlotView(props: SweepPlotProps) {
   }, [model]);
 
   useEffect(() => {
-    plot.current?.setSize({ width, height: Math.max(60, height - READOUT_HEIGHT) });
+    const u = plot.current;
+    if (!u) return;
+    // uPlot draws the axis label from its axis on every draw: the new size's label shows at setSize.
+    if (u.axes[1]) u.axes[1].label = yLabelFor(latest.current, height - READOUT_HEIGHT);
+    u.setSize({ width, height: Math.max(60, height - READOUT_HEIGHT) });
   }, [width, height]);
 
   const summary = plotSummary(model, result);
