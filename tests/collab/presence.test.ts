@@ -3,9 +3,11 @@
 // a leave is sent too. Raw clients over real sockets against the real server.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
+import type { WebsocketProvider } from 'y-websocket';
 import * as decoding from 'lib0/decoding';
 import { designWith, startWorld, until, type Person, type World } from './helpers/world';
 import { awarenessMsg, rawClient, syncStep1, type RawClient } from './helpers/raw';
+import { sendOwnPresenceOnly } from '../../client/features/workspace/collab/own-presence';
 
 let world: World;
 let owner: Person;
@@ -78,5 +80,49 @@ describe('presence batching', () => {
     // One leaves: the others are told its state is gone.
     people[7].close();
     await until('the leave', () => latest(watcher).get(ids[7])?.state === null);
+  });
+});
+
+describe('the workspace provider (sendOwnPresenceOnly)', () => {
+  /** Count the presence messages (y-websocket message type 1) a provider sends from now on. */
+  function countPresenceSent(provider: WebsocketProvider): () => number {
+    const ws = provider.ws as unknown as { send(data: Uint8Array): void };
+    const send = ws.send.bind(ws);
+    let n = 0;
+    ws.send = (data: Uint8Array) => {
+      if (decoding.readVarUint(decoding.createDecoder(new Uint8Array(data))) === 1) n++;
+      send(data);
+    };
+    return () => n;
+  }
+
+  it('sends its own presence changes and not everyone else\'s back (the plain y-websocket client echoes them)', async () => {
+    // Common practice (y-protocols awareness: a client speaks for its own client id).
+    const patched = world.peer(owner, roomId);
+    sendOwnPresenceOnly(patched.provider);
+    const plain = world.peer(owner, roomId);
+    const mover = world.peer(owner, roomId);
+    try {
+      await Promise.all([patched.synced, plain.synced, mover.synced]);
+      const all = [patched, plain, mover];
+      // (A state at clock 0, a provider's empty first one, is not taken by others: each says who it is.)
+      all.forEach((p, i) => p.provider.awareness.setLocalStateField('name', `peer ${i}`));
+      await until('everyone to see everyone', () => all.every((p) => all.every((q) => p.provider.awareness.getStates().has(q.provider.awareness.clientID))));
+      const sentByPatched = countPresenceSent(patched.provider);
+      const sentByPlain = countPresenceSent(plain.provider);
+      for (let i = 1; i <= 5; i++) mover.provider.awareness.setLocalStateField('cursor', { x: i, y: i });
+      const moved = (p: typeof patched) => (p.provider.awareness.getStates().get(mover.provider.awareness.clientID) as { cursor?: { x: number } } | undefined)?.cursor?.x === 5;
+      await until('the last move to reach both', () => moved(patched) && moved(plain));
+      expect(sentByPlain()).toBeGreaterThan(0); // the echo this guards against
+      expect(sentByPatched()).toBe(0);
+      // Its own changes still go out, and the others see them.
+      patched.provider.awareness.setLocalStateField('cursor', { x: 42, y: 0 });
+      await until('the patched client\'s own move to reach the others', () =>
+        [plain, mover].every((p) => (p.provider.awareness.getStates().get(patched.provider.awareness.clientID) as { cursor?: { x: number } } | undefined)?.cursor?.x === 42),
+      );
+      expect(sentByPatched()).toBe(1);
+    } finally {
+      for (const p of [patched, plain, mover]) p.destroy();
+    }
   });
 });

@@ -9,6 +9,7 @@
 import { useEffect, useState } from 'react';
 import * as Y from 'yjs';
 import { WebsocketProvider } from 'y-websocket';
+import { sendOwnPresenceOnly } from './own-presence';
 import { isApiError } from '../../../lib/api-client';
 import { getCollabToken } from './collab-token';
 
@@ -54,6 +55,7 @@ export function useRoomDoc(roomId: string, options: RoomDocOptions = {}): RoomDo
   useEffect(() => {
     const doc = new Y.Doc();
     const provider = new WebsocketProvider(serverUrl ?? collabServerUrl(), roomId, doc, { connect: false, disableBc: true });
+    sendOwnPresenceOnly(provider);
     const abort = new AbortController();
     let attempts = 0;
     let timer: ReturnType<typeof setTimeout> | undefined;
