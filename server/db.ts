@@ -23,13 +23,24 @@ interface SqliteConnection {
  * connection commits past 1,000 WAL pages, would fsync on the event loop (30 ms stalls seen with 50
  * busy rooms).
  */
-const checkpointedByThread = new Set<string>();
+const checkpointedByThread = new Map<string, number>();
 
-/** From now on `filename`'s checkpoints are a thread's: turn off the automatic ones of `knex`'s connections. */
+/**
+ * From now on `filename`'s checkpoints are a thread's: turn off the automatic ones of `knex`'s connections.
+ * Returns the undo, which turns them back on once the last writer of that file in this process is gone.
+ */
 export function checkpointOnThread(knex: Knex, filename: string): () => void {
-  checkpointedByThread.add(filename);
+  checkpointedByThread.set(filename, (checkpointedByThread.get(filename) ?? 0) + 1);
   void knex.raw('PRAGMA wal_autocheckpoint = 0').catch(() => {});
+  let undone = false;
   return () => {
+    if (undone) return;
+    undone = true;
+    const left = (checkpointedByThread.get(filename) ?? 1) - 1;
+    if (left > 0) {
+      checkpointedByThread.set(filename, left);
+      return;
+    }
     checkpointedByThread.delete(filename);
     void knex.raw('PRAGMA wal_autocheckpoint = 1000').catch(() => {});
   };

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { statSync } from 'node:fs';
 import { readElement, setElementField } from '../../shared/collab/schema';
-import { CHECKPOINT_MIN_COMMITS } from '../../server/collab/store';
+import { CHECKPOINT_MIN_COMMITS, openSyncUpdateWriter } from '../../server/collab/store';
 import { designWith, sleep, until, type Person } from './helpers/world';
 import { startHub, type HubWorld } from './helpers/hub';
 
@@ -50,5 +50,10 @@ describe('WAL checkpoints', () => {
     } finally {
       fresh.close();
     }
+    // A second writer on the same file closing does not turn them back on while the hub's still runs.
+    const second = openSyncUpdateWriter(w.knex);
+    second?.close();
+    const after = (await w.knex.raw('PRAGMA wal_autocheckpoint')) as { wal_autocheckpoint: number }[];
+    expect(after[0].wal_autocheckpoint).toBe(0);
   });
 });
