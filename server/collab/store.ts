@@ -75,13 +75,10 @@ export async function createRoomDocument(knex: Knex | Knex.Transaction, roomId: 
 
 /** Load a room's document from the compacted state plus the later log. */
 export async function loadRoomDocument(knex: Knex | Knex.Transaction, roomId: string): Promise<StoredDoc> {
+  const { state, rows } = await readStateAndLog(knex, roomId);
   const doc = new Y.Doc({ gc: true });
-  const state = await knex('room_states').where({ room_id: roomId }).first();
   const upto = state ? Number(state.upto_id) : 0;
   if (state) Y.applyUpdate(doc, toUint8(state.state));
-  // Every row still in the log, not only those past `upto_id`: compaction deletes exactly the rows it
-  // merged, and on PostgreSQL a row may commit after a row with a larger id (two processes writing).
-  const rows = await knex('room_updates').where({ room_id: roomId }).orderBy('id', 'asc').select('id', 'update');
   let last = upto;
   let skipped = 0;
   const ids: number[] = [];
@@ -95,6 +92,28 @@ export async function loadRoomDocument(knex: Knex | Knex.Transaction, roomId: st
     last = Math.max(last, Number(r.id));
   }
   return { doc, lastUpdateId: last, pendingUpdates: rows.length, skippedUpdates: skipped, ids, stateMark: state ? stateMarkOf(state) : '' };
+}
+
+/** Times a load reads again when a compaction committed between its reads. */
+const LOAD_ATTEMPTS = 5;
+
+/**
+ * The compacted state and every row still in the log, as of one moment. Not only the rows past `upto_id`:
+ * compaction deletes exactly the rows it merged, and on PostgreSQL a row may commit after a row with a
+ * larger id (two processes writing). The two reads are separate statements, so a compaction (state
+ * rewritten, merged rows deleted) committing between them would leave this load with the old state and
+ * without the merged rows; the state's mark is read again after the rows, and on a change both are read
+ * again. (A transaction would pin one snapshot, but on SQLite ours begin IMMEDIATE, taking the write lock
+ * that the room writer never waits for.)
+ */
+async function readStateAndLog(knex: Knex | Knex.Transaction, roomId: string) {
+  for (let attempt = 1; ; attempt++) {
+    const state = await knex('room_states').where({ room_id: roomId }).first();
+    const rows = await knex('room_updates').where({ room_id: roomId }).orderBy('id', 'asc').select('id', 'update');
+    const after = await knex('room_states').where({ room_id: roomId }).first('upto_id', 'updated_at');
+    const same = state && after ? stateMarkOf(state) === stateMarkOf(after) : !state && !after;
+    if (same || attempt >= LOAD_ATTEMPTS) return { state, rows };
+  }
 }
 
 /**
