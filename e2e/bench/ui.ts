@@ -93,7 +93,7 @@ interface DrawRecord {
   probe: number | null;
 }
 interface PageLog {
-  input: { t: number; y: number; buttons: number }[];
+  input: { t: number; h: number; y: number; buttons: number }[];
   chart: DrawRecord[];
   plot: DrawRecord[];
   requested: { at: number; seq: number }[];
@@ -109,7 +109,7 @@ function installHooks(draggedId: string) {
   w.__mlProbe = (d: { elements: { id: string; value?: number }[] }) => d.elements.find((e) => e.id === draggedId)?.value ?? null;
   w.__mlOnDrawn = (which: 'chart' | 'plot', rec: DrawRecord) => log[which].push(rec);
   w.__mlOnStage = (stage: 'requested' | 'analysed', rec: { at: number; seq: number }) => log[stage].push(rec);
-  window.addEventListener('pointermove', (e) => log.input.push({ t: performance.timeOrigin + e.timeStamp, y: e.clientY, buttons: e.buttons }), { capture: true });
+  window.addEventListener('pointermove', (e) => log.input.push({ t: performance.timeOrigin + e.timeStamp, h: performance.timeOrigin + performance.now(), y: e.clientY, buttons: e.buttons }), { capture: true });
 }
 
 async function signUpByApi(session: BrowserSession, account: Account) {
@@ -402,6 +402,10 @@ async function main() {
 
     const span = events.length > 1 ? events[events.length - 1].t - events[0].t : 0;
     console.log(`\n  the drag took ${(span / 1000).toFixed(1)} s: one value-changing event every ${(span / Math.max(1, events.length - 1)).toFixed(1)} ms on average`);
+    {
+      const d = moves.map((m) => m.h - m.t).sort((x, y) => x - y);
+      console.log(`  pointer event → its dispatch on the tuner's page: p50 ${percentile(d, 0.5).toFixed(1)}  p95 ${percentile(d, 0.95).toFixed(1)} ms`);
+    }
     breakdown('tuner', events, logA);
     breakdown('observer', events, logB);
 

@@ -266,6 +266,55 @@ export function parseDesign(json: unknown): Design {
   return result.data;
 }
 
+/** A design file as read (`input`, unchecked JSON) and as checked by `parseDesign` (`design`). */
+export interface ParsedDesign {
+  input: Record<string, unknown>;
+  design: Design;
+}
+
+/**
+ * `parseDesign(input)`, reusing `prev` (an earlier input and its checked design) when only some
+ * elements changed: every other field reads the same as in `prev.input` and the elements keep their
+ * ids and order. Only the changed elements are then checked (against `elementSchema`, which is what
+ * the whole-design check applies to each of them; the design-wide rules read only the fields and
+ * ids that did not change), and the unchanged ones keep `prev.design`'s objects. Anything else, or a
+ * changed element that does not check, goes through `parseDesign`, so the result and the error are
+ * always the ones `parseDesign` gives. For a value being tuned (one number in one element changed per
+ * step) this checks one element instead of the whole design.
+ */
+export function reparseDesign(prev: ParsedDesign | null, input: unknown): Design {
+  const full = () => parseDesign(input);
+  if (!prev || input === null || typeof input !== 'object' || Array.isArray(input)) return full();
+  const next = input as Record<string, unknown>;
+  const keys = Object.keys(next);
+  if (keys.length !== Object.keys(prev.input).length) return full();
+  for (const k of keys) {
+    if (!(k in prev.input)) return full();
+    if (k === 'elements') continue;
+    if (next[k] !== prev.input[k] && JSON.stringify(next[k]) !== JSON.stringify(prev.input[k])) return full();
+  }
+  const before = prev.input.elements;
+  const after = next.elements;
+  if (!Array.isArray(before) || !Array.isArray(after) || before.length !== after.length) return full();
+  if (before.length !== prev.design.elements.length) return full();
+  let changed = false;
+  const elements = new Array<Element>(after.length);
+  for (let i = 0; i < after.length; i++) {
+    const a = after[i] as Record<string, unknown> | null;
+    const b = before[i] as Record<string, unknown> | null;
+    if (a === null || typeof a !== 'object' || b === null || typeof b !== 'object' || a.id !== b.id) return full();
+    if (a === b || JSON.stringify(a) === JSON.stringify(b)) {
+      elements[i] = prev.design.elements[i];
+      continue;
+    }
+    const checked = elementSchema.safeParse(a);
+    if (!checked.success) return full();
+    elements[i] = checked.data;
+    changed = true;
+  }
+  return changed ? { ...prev.design, elements } : prev.design;
+}
+
 /** Same as `parseDesign`, but returns the error instead of throwing. */
 export function safeParseDesign(json: unknown): { ok: true; design: Design } | { ok: false; error: DesignError } {
   try {

@@ -8,10 +8,12 @@
  *   seq   — the analysis request number whose result was drawn (per page)
  *   probe — window.__mlProbe?.(design) for the design that result was computed from (the bench sets
  *           a probe that reads the value it is dragging, e.g. d => d.elements[3].value)
- * It also calls window.__mlOnDrawn?.(which, record) and leaves a performance mark "ml:chart-drawn" /
- * "ml:plot-drawn". For a breakdown, useAnalysis calls window.__mlOnStage?.(stage, { at, seq }) with
- * stage "requested" (the design went to the engine) and "analysed" (its result came back), with performance marks "ml:requested" / "ml:analysed". Nothing is recorded until the page defines window.__mlDrawn (the bench does), so
- * normal use pays one property check per draw.
+ * It also calls window.__mlOnDrawn?.(which, record). For a breakdown, useAnalysis calls
+ * window.__mlOnStage?.(stage, { at, seq }) with stage "requested" (the design went to the engine)
+ * and "analysed" (its result came back). Nothing is recorded until the page defines
+ * window.__mlDrawn (the bench does), so normal use pays one property check per draw.
+ * (No performance.mark: in headless Chromium one cost about 0.6 ms of main-thread time, four per
+ * tuning step, which the benchmark then measured as latency.)
  */
 import type { Design } from '../../../../shared/rf/design';
 
@@ -56,7 +58,6 @@ export function markDrawn(which: 'chart' | 'plot', result: object | null): void 
   }
   const record: DrawRecord = { at: epochNow(), seq: src?.seq ?? 0, probe };
   w.__mlDrawn[which] = record;
-  performance.mark(`ml:${which}-drawn`);
   w.__mlOnDrawn?.(which, record);
 }
 
@@ -65,6 +66,5 @@ export function markStage(stage: 'requested' | 'analysed', seq: number): void {
   if (typeof window === 'undefined') return;
   const w = window as unknown as BenchWindow;
   if (!w.__mlDrawn || !w.__mlOnStage) return;
-  performance.mark(`ml:${stage}`);
   w.__mlOnStage(stage, { at: epochNow(), seq });
 }

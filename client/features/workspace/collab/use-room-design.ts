@@ -6,7 +6,7 @@
 import { startTransition, useEffect, useMemo, useState } from 'react';
 import type * as Y from 'yjs';
 import { readDesign, readDesignInput } from '../../../../shared/collab/schema';
-import { DesignError, type Design } from '../../../../shared/rf/design';
+import { DesignError, reparseDesign, type Design, type ParsedDesign } from '../../../../shared/rf/design';
 
 export interface RoomDesignState {
   design: Design | null;
@@ -32,22 +32,39 @@ export interface RoomDesign extends RoomDesignState {
 
 export type DesignReading = { ok: true; design: Design } | { ok: false; message: string };
 
+function readingError(e: unknown): DesignReading {
+  if (e instanceof DesignError) return { ok: false, message: e.message };
+  return { ok: false, message: e instanceof Error ? e.message : 'the room document could not be read' };
+}
+
 /** One reading of the document: the design, or the sentence for the banner. */
 export function readRoomDesign(doc: Y.Doc): DesignReading {
   try {
     return { ok: true, design: readDesign(doc) };
   } catch (e) {
-    if (e instanceof DesignError) return { ok: false, message: e.message };
-    return { ok: false, message: e instanceof Error ? e.message : 'the room document could not be read' };
+    return readingError(e);
   }
 }
 
-/** The document's content as a string (null when it cannot be read), to skip re-reading an unchanged one. */
-function inputKey(doc: Y.Doc): string | null {
+/**
+ * The document's content as read (unchecked) and as a string, or the reason it cannot be read;
+ * the string skips re-checking an unchanged document.
+ */
+function readInput(doc: Y.Doc): { input: Record<string, unknown>; key: string } | { error: DesignReading } {
   try {
-    return JSON.stringify(readDesignInput(doc));
-  } catch {
-    return null;
+    const input = readDesignInput(doc) as unknown as Record<string, unknown>;
+    return { input, key: JSON.stringify(input) };
+  } catch (e) {
+    return { error: readingError(e) };
+  }
+}
+
+/** `input` checked as a design, reusing the previous reading's checked elements (`reparseDesign`). */
+function checkInput(input: Record<string, unknown>, prev: ParsedDesign | null): DesignReading {
+  try {
+    return { ok: true, design: reparseDesign(prev, input) };
+  } catch (e) {
+    return readingError(e);
   }
 }
 
@@ -195,7 +212,7 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
     // One reading per document update; an unchanged document is not re-validated, and a new design
     // keeps the previous one's unchanged parts (same objects), so memoised views of them skip work.
     let lastKey: string | null = null;
-    let last: Design | null = null;
+    let last: ParsedDesign | null = null;
     // the screen's renders of new designs: after their analysis is drawn, throttled while they stream in
     const renders = createRenderThrottle((design) =>
       // The screen's render of a new design may be interrupted (by the chart drawing the analysis
@@ -203,13 +220,15 @@ export function useRoomDesign(doc: Y.Doc | null, ready: boolean): RoomDesign {
       startTransition(() => setState({ design, error: null })),
     );
     const refresh = () => {
-      const key = inputKey(doc);
-      if (key !== null && key === lastKey) return;
-      const reading = readRoomDesign(doc);
+      const read = readInput(doc);
+      if ('key' in read && read.key === lastKey) return;
+      const reading = 'key' in read ? checkInput(read.input, last) : read.error;
       if (reading.ok) {
+        // (a reading is good only when the document could be read: `read` has the input)
+        const { input, key } = read as { input: Record<string, unknown>; key: string };
         lastKey = key;
-        const design = shareUnchanged(last, reading.design);
-        last = design;
+        const design = shareUnchanged(last?.design ?? null, reading.design);
+        last = { input, design };
         const work: Promise<unknown>[] = [];
         for (const listener of listeners) {
           const done = listener(design);
