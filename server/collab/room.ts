@@ -13,6 +13,7 @@ import { appendUpdates, compactRoomDocument, loadRoomDocument, saveRoomState, st
 import type { Cluster, RoomMessageKind } from './cluster';
 import type { CollabConnection } from './connection';
 import { formatBytes, type CollabLimits } from './limits';
+import { backgroundQueue } from './yielding-queue';
 import {
   awarenessMessage,
   decodeDocumentUpdate,
@@ -584,7 +585,8 @@ export class Room {
    */
   private describeSoon(userId: string): void {
     this.describeUser = userId;
-    this.describeTimer ??= setTimeout(() => this.flushDescribe(), DESCRIBE_DELAY_MS);
+    // (the timer stays set until the queued describe runs, so edits meanwhile join this run)
+    this.describeTimer ??= setTimeout(() => backgroundQueue.push(() => this.flushDescribe()), DESCRIBE_DELAY_MS);
   }
 
   /** Describe now whatever edits are waiting to be described (before the room log is read). */
