@@ -5,7 +5,7 @@
 // (sampled every BENCH_PROFILE_INTERVAL_US µs, default 100; 400 distorts the timings less).
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { Session } from 'node:inspector/promises';
 import { join } from 'node:path';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
@@ -39,6 +39,7 @@ loopDelay.enable();
 // With BENCH_PROFILE=<dir>, the main thread's CPU profile of the measuring windows only (no set-up).
 const profiler = process.env.BENCH_PROFILE ? new Session() : null;
 if (profiler) {
+  mkdirSync(process.env.BENCH_PROFILE!, { recursive: true });
   profiler.connect();
   await profiler.post('Profiler.enable');
   await profiler.post('Profiler.setSamplingInterval', { interval: Number(process.env.BENCH_PROFILE_INTERVAL_US ?? 100) });

@@ -79,6 +79,13 @@ async function startServerProcess(mode: 'matchloom' | 'bare', databaseFile: stri
     createInterface({ input: child.stdout! }).once('line', (l) => resolve(JSON.parse(l).port));
     child.once('exit', (code) => reject(new Error(`${mode} server exited with ${code}`)));
   });
+  let stopping = false;
+  // A server that dies mid-run would leave the bench waiting for its figures.
+  child.once('exit', (code, signal) => {
+    if (stopping) return;
+    console.error(`the ${mode} server exited during the run (${signal ?? `code ${code}`})`);
+    process.exit(1);
+  });
   return {
     child,
     port,
@@ -89,6 +96,7 @@ async function startServerProcess(mode: 'matchloom' | 'bare', databaseFile: stri
       }),
     stop: () =>
       new Promise<void>((resolve) => {
+        stopping = true;
         child.once('exit', () => resolve());
         child.kill('SIGTERM');
         setTimeout(() => child.kill('SIGKILL'), 3000).unref();
