@@ -5,7 +5,7 @@
  * (Shift coarse, Alt fine), Ctrl+← → move the element, Delete removes, Ctrl+D duplicates.
  */
 import type Konva from 'konva';
-import { memo, useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
+import { memo, useEffect, useLayoutEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { Circle, Group, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import type { Design, Element } from '../../../../shared/rf/design';
 import type { ESeries } from '../../../../shared/rf/eseries';
@@ -16,7 +16,7 @@ import { tunableOf } from '../value/tunable';
 import { dragSteps, stepSizeFromModifiers, stepValue, wheelSteps } from '../value/tuning-step';
 import { elementName } from './element-catalog';
 import { elementDescription, elementValueLabel } from './element-summary';
-import { CELL_WIDTH, GROUND_Y, LOAD_WIDTH, PORT_WIDTH, RAIL_Y, chainLayout, dropIndex } from './chain-layout';
+import { CANVAS_HEIGHT, CELL_WIDTH, GROUND_Y, LOAD_WIDTH, PORT_WIDTH, RAIL_Y, chainLayout, dropIndex } from './chain-layout';
 import { ElementSymbol, Ground, INK, LockMark, tintOf } from './element-symbol';
 import { loadSummary } from './load-summary';
 import { installLowLatencyKonvaCanvases } from '../layout/low-latency-canvas';
@@ -260,6 +260,28 @@ interface ChainCellProps {
 
 /** One element on the canvas; memoised, so tuning one value re-renders only its cell. */
 const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, others, editable, actions }: ChainCellProps) {
+  // Each cell is kept as a bitmap, made again after each render of the cell (it renders only when its
+  // element, selection or peers change): the layer redraws whenever any cell changes, and then the
+  // other cells cost one bitmap copy each instead of their shapes and text. Events still reach the
+  // shapes (Konva keeps a cached hit region too).
+  const group = useRef<Konva.Group>(null);
+  useLayoutEffect(() => {
+    if (group.current) cacheCell(group.current);
+  });
+  useEffect(() => {
+    if (typeof document === 'undefined' || !document.fonts) return;
+    let live = true;
+    // the labels again in the web font once it has loaded
+    void document.fonts.ready.then(() => {
+      if (live && group.current) {
+        cacheCell(group.current);
+        group.current.getLayer()?.batchDraw();
+      }
+    });
+    return () => {
+      live = false;
+    };
+  }, []);
   const select = () => actions.select(e.id);
   const onDragEnd = (ev: Konva.KonvaEventObject<DragEvent>) => {
     const node = ev.target;
@@ -291,6 +313,7 @@ const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, ot
   };
   return (
     <Group
+      ref={group}
       key={e.id}
       x={x}
       y={0}
@@ -362,6 +385,11 @@ const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, ot
     </Group>
   );
 });
+
+function cacheCell(g: Konva.Group): void {
+  g.clearCache();
+  g.cache({ x: 0, y: 0, width: CELL_WIDTH, height: CANVAS_HEIGHT, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 });
+}
 
 const PortSymbol = memo(PortSymbolView, (a, b) => a.design.port === b.design.port && a.design.referenceOhms === b.design.referenceOhms);
 const LoadSymbol = memo(LoadSymbolView, (a, b) => a.design.load === b.design.load && a.x === b.x);
