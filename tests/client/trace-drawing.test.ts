@@ -9,7 +9,7 @@ import { buildTraceModel } from '../../client/features/workspace/chart/trace-mod
 import { chipAntennaDesign } from './analysis-fixtures';
 
 interface Op {
-  kind: 'stroke' | 'fill' | 'text';
+  kind: 'stroke' | 'fill' | 'text' | 'halo';
   style: string;
   width: number;
   /** the current path's points (moveTo / lineTo) or arcs (x, y, r) */
@@ -61,6 +61,9 @@ function recordingContext(): { ctx: CanvasRenderingContext2D; ops: Op[] } {
     fill() {
       ops.push({ kind: 'fill', style: String(this.fillStyle), width: 0, points: [...points], arcs: [...arcs] });
     },
+    strokeText(s: string, x: number, y: number) {
+      ops.push({ kind: 'halo', style: String(this.strokeStyle), width: this.lineWidth, points: [x, y], arcs: [], text: s });
+    },
     fillText(s: string, x: number, y: number) {
       ops.push({ kind: 'text', style: String(this.fillStyle), width: 0, points: [x, y], arcs: [], text: s });
     },
@@ -104,5 +107,16 @@ describe('drawTraceModel', () => {
     const labels = ops.filter((o) => o.kind === 'text' && o.style === CHART_PALETTE.traceDeep).map((o) => o.text);
     expect(labels).toHaveLength(model.bandMarks.filter((b) => b.role !== 'centre').length);
     expect(labels.every((t) => /GHz|MHz/.test(t ?? ''))).toBe(true);
+  });
+
+  it('draws every label over a halo of the chart paper, at the same place, just before it', () => {
+    // common practice: a label over grid lines stays readable on a halo of the background colour
+    const texts = ops.map((o, i) => [o, i] as const).filter(([o]) => o.kind === 'text');
+    expect(texts.length).toBeGreaterThan(0);
+    for (const [t, i] of texts) {
+      const halo = ops[i - 1];
+      expect(halo).toMatchObject({ kind: 'halo', style: CHART_PALETTE.paper, text: t.text, points: t.points });
+      expect(halo.width).toBeGreaterThan(1);
+    }
   });
 });
