@@ -9,7 +9,7 @@ import { buildTraceModel } from '../../client/features/workspace/chart/trace-mod
 import { chipAntennaDesign } from './analysis-fixtures';
 
 interface Op {
-  kind: 'stroke' | 'fill' | 'text' | 'halo';
+  kind: 'stroke' | 'fill' | 'text' | 'backdrop';
   style: string;
   width: number;
   /** the current path's points (moveTo / lineTo) or arcs (x, y, r) */
@@ -61,8 +61,8 @@ function recordingContext(): { ctx: CanvasRenderingContext2D; ops: Op[] } {
     fill() {
       ops.push({ kind: 'fill', style: String(this.fillStyle), width: 0, points: [...points], arcs: [...arcs] });
     },
-    strokeText(s: string, x: number, y: number) {
-      ops.push({ kind: 'halo', style: String(this.strokeStyle), width: this.lineWidth, points: [x, y], arcs: [], text: s });
+    fillRect(x: number, y: number, w: number, h: number) {
+      ops.push({ kind: 'backdrop', style: String(this.fillStyle), width: w, points: [x, y, x + w, y + h], arcs: [] });
     },
     fillText(s: string, x: number, y: number) {
       ops.push({ kind: 'text', style: String(this.fillStyle), width: 0, points: [x, y], arcs: [], text: s });
@@ -109,14 +109,20 @@ describe('drawTraceModel', () => {
     expect(labels.every((t) => /GHz|MHz/.test(t ?? ''))).toBe(true);
   });
 
-  it('draws every label over a halo of the chart paper, at the same place, just before it', () => {
-    // common practice: a label over grid lines stays readable on a halo of the background colour
+  it('draws every label over a backdrop of the chart paper that holds the text, just before it', () => {
+    // common practice: a label over grid lines stays readable on a box of the background colour
     const texts = ops.map((o, i) => [o, i] as const).filter(([o]) => o.kind === 'text');
     expect(texts.length).toBeGreaterThan(0);
     for (const [t, i] of texts) {
-      const halo = ops[i - 1];
-      expect(halo).toMatchObject({ kind: 'halo', style: CHART_PALETTE.paper, text: t.text, points: t.points });
-      expect(halo.width).toBeGreaterThan(1);
+      const box = ops[i - 1];
+      expect(box).toMatchObject({ kind: 'backdrop', style: CHART_PALETTE.paper });
+      const [x0, y0, x1, y1] = box.points;
+      // the text's top-left corner is (x, y − 5) with a 10 px font, middle baseline
+      const [x, y] = t.points;
+      expect(x0).toBeLessThanOrEqual(x);
+      expect(y0).toBeLessThanOrEqual(y - 5);
+      expect(y1).toBeGreaterThanOrEqual(y + 5);
+      expect(x1 - x).toBeGreaterThanOrEqual(5.5 * (t.text ?? '').length);
     }
   });
 });

@@ -66,12 +66,12 @@ function text(ctx: CanvasRenderingContext2D, s: string, x: number, y: number, co
   ctx.font = `${bold ? 'bold' : 'normal'} 10px ${CHART_FONT}`;
   ctx.textBaseline = 'middle';
   ctx.textAlign = 'left';
-  // a halo of the chart's paper, so that a label stays readable over a grid label or a circle
-  ctx.setLineDash([]);
-  ctx.lineJoin = 'round';
-  ctx.lineWidth = 3;
-  ctx.strokeStyle = CHART_PALETTE.paper;
-  ctx.strokeText(s, x, y + 5);
+  // on a backdrop of the chart's paper, so that a label stays readable over a grid label or a circle
+  // (a filled box: stroking the glyphs for a halo costs several times more to raster)
+  ctx.globalAlpha = 0.8;
+  ctx.fillStyle = CHART_PALETTE.paper;
+  ctx.fillRect(x - 2, y - 1, labelWidth(s) + (bold ? 4 : 2), 12);
+  ctx.globalAlpha = 1;
   ctx.fillStyle = colour;
   ctx.fillText(s, x, y + 5);
 }
