@@ -93,7 +93,10 @@ export async function openSession(
     async screenshot(name) {
       await mkdir(SCREENSHOT_DIR, { recursive: true });
       const path = join(SCREENSHOT_DIR, `${name}.png`);
-      await page.screenshot({ path, fullPage: true });
+      // The whole page only when it is really longer than the window: a full-page capture resizes the
+      // viewport, and the workspace's canvases can then be caught mid-resize (DEVELOPERS.md).
+      const overflow = await page.evaluate(() => document.documentElement.scrollHeight - window.innerHeight);
+      await page.screenshot({ path, fullPage: overflow > 24 });
       return path;
     },
     async close() {
