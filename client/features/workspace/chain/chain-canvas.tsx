@@ -19,7 +19,7 @@ import { elementDescription, elementValueLabel } from './element-summary';
 import { CANVAS_HEIGHT, CELL_WIDTH, GROUND_Y, LOAD_WIDTH, PORT_WIDTH, RAIL_Y, chainLayout, dropIndex } from './chain-layout';
 import { ElementSymbol, Ground, INK, LockMark, tintOf } from './element-symbol';
 import { loadSummary } from './load-summary';
-import { installLowLatencyKonvaCanvases } from '../layout/low-latency-canvas';
+import { installLowLatencyKonvaCanvases, offScreen } from '../layout/low-latency-canvas';
 
 installLowLatencyKonvaCanvases();
 
@@ -260,14 +260,37 @@ interface ChainCellProps {
 
 /** One element on the canvas; memoised, so tuning one value re-renders only its cell. */
 const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, others, editable, actions }: ChainCellProps) {
-  // Each cell is kept as a bitmap, made again after each render of the cell (it renders only when its
-  // element, selection or peers change): the layer redraws whenever any cell changes, and then the
-  // other cells cost one bitmap copy each instead of their shapes and text. Events still reach the
-  // shapes (Konva keeps a cached hit region too).
+  // Each cell is kept as a bitmap: the layer redraws whenever any cell changes, and then the other
+  // cells cost one bitmap copy each instead of their shapes and text. Events still reach the shapes
+  // (Konva keeps a cached hit region too). A cell that changes (it renders only when its element,
+  // selection or peers change) draws its shapes until it has been still for RECACHE_AFTER_MS: while a
+  // value is dragged, making its bitmap again at every step cost more (new canvases) than it saved.
   const group = useRef<Konva.Group>(null);
+  const recache = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const mounted = useRef(false);
   useLayoutEffect(() => {
-    if (group.current) cacheCell(group.current);
+    const g = group.current;
+    if (!g) return;
+    if (!mounted.current) {
+      mounted.current = true;
+      cacheCell(g);
+      return;
+    }
+    if (g.isCached()) g.clearCache();
+    if (recache.current) clearTimeout(recache.current);
+    recache.current = setTimeout(() => {
+      recache.current = null;
+      if (!group.current) return;
+      cacheCell(group.current);
+      group.current.getLayer()?.batchDraw();
+    }, RECACHE_AFTER_MS);
   });
+  useEffect(
+    () => () => {
+      if (recache.current) clearTimeout(recache.current);
+    },
+    [],
+  );
   useEffect(() => {
     if (typeof document === 'undefined' || !document.fonts) return;
     let live = true;
@@ -386,9 +409,12 @@ const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, ot
   );
 });
 
+/** How long a changed chain cell draws its shapes before it is made a bitmap again (ms). */
+const RECACHE_AFTER_MS = 400;
+
 function cacheCell(g: Konva.Group): void {
   g.clearCache();
-  g.cache({ x: 0, y: 0, width: CELL_WIDTH, height: CANVAS_HEIGHT, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 });
+  offScreen(() => g.cache({ x: 0, y: 0, width: CELL_WIDTH, height: CANVAS_HEIGHT, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 }));
 }
 
 const PortSymbol = memo(PortSymbolView, (a, b) => a.design.port === b.design.port && a.design.referenceOhms === b.design.referenceOhms);
