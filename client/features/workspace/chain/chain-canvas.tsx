@@ -19,7 +19,7 @@ import { elementDescription, elementValueLabel } from './element-summary';
 import { CANVAS_HEIGHT, CELL_WIDTH, GROUND_Y, LOAD_WIDTH, PORT_WIDTH, RAIL_Y, chainLayout, dropIndex } from './chain-layout';
 import { ElementSymbol, Ground, INK, LockMark, tintOf } from './element-symbol';
 import { loadSummary } from './load-summary';
-import { installLowLatencyKonvaCanvases, offScreen } from '../layout/low-latency-canvas';
+import { cacheOffScreen, installLowLatencyKonvaCanvases } from '../layout/low-latency-canvas';
 
 installLowLatencyKonvaCanvases();
 
@@ -413,8 +413,7 @@ const ChainCell = memo(function ChainCell({ element: e, index, x, isSelected, ot
 const RECACHE_AFTER_MS = 400;
 
 function cacheCell(g: Konva.Group): void {
-  g.clearCache();
-  offScreen(() => g.cache({ x: 0, y: 0, width: CELL_WIDTH, height: CANVAS_HEIGHT, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 }));
+  cacheOffScreen(g, CELL_WIDTH, CANVAS_HEIGHT);
 }
 
 const PortSymbol = memo(PortSymbolView, (a, b) => a.design.port === b.design.port && a.design.referenceOhms === b.design.referenceOhms);

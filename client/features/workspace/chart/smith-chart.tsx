@@ -26,7 +26,7 @@ import { DEFAULT_VIEW, panView, pixelToGamma, zoomViewAt, type ChartView } from 
 import { buildGridModel, labelWidth, type GridModel } from './grid-model';
 import { chartReadout, chartSummary, type Readout } from './readout';
 import { CHART_FONT, drawTraceModel } from './trace-drawing';
-import { installLowLatencyKonvaCanvases, offScreen } from '../layout/low-latency-canvas';
+import { cacheOffScreen, installLowLatencyKonvaCanvases } from '../layout/low-latency-canvas';
 import { buildTraceModel, chartZ0, nearestTracePoint, pathElementAt, traceGammas, type CursorMark, type TraceModel } from './trace-model';
 
 export interface ChartCursor {
@@ -354,8 +354,7 @@ function peerSelectionsKeyOf(sel: ChartPeerSelection[] | undefined): string {
 
 /** Cache the grid as one bitmap of the canvas's own size (zoomed in, its circles reach far beyond it). */
 function cacheGrid(g: Konva.Group, width: number, height: number): void {
-  g.clearCache();
-  offScreen(() => g.cache({ x: 0, y: 0, width, height, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 }));
+  cacheOffScreen(g, width, height);
 }
 
 /** Memoised: any re-render would hand Konva a new clip function and redraw the cached grid. */

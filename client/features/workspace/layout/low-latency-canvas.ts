@@ -75,3 +75,12 @@ export function offScreen<T>(build: () => T): T {
     offScreenDepth--;
   }
 }
+
+/**
+ * Cache `node` (a Konva group) as one bitmap of `width` × `height` from its origin, at the screen's pixel
+ * ratio, with an ordinary 2D context (see `offScreen`). Any earlier bitmap is released first.
+ */
+export function cacheOffScreen(node: Konva.Node, width: number, height: number): void {
+  node.clearCache();
+  offScreen(() => node.cache({ x: 0, y: 0, width, height, pixelRatio: typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1 }));
+}
