@@ -59,6 +59,10 @@ const { values: args } = parseArgs({
 });
 const EVENTS = Math.max(10, Number(args.events));
 const INTERVAL = Math.max(0, Number(args.interval));
+if (args.pass !== 'solo' && args.pass !== 'pair') {
+  console.error(`--pass must be solo or pair, not ${JSON.stringify(args.pass)}`);
+  process.exit(2);
+}
 
 const DRAGGED_ID = 'L4';
 const DRAGGED_INDEX = 8;
