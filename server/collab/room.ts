@@ -167,7 +167,6 @@ export class Room {
     this.awareness = new awarenessProtocol.Awareness(doc);
     this.awareness.setLocalState(null);
     this.awareness.on('update', this.onAwarenessUpdate);
-    doc.on('update', this.onDocUpdate);
   }
 
   static async load(id: string, deps: RoomDeps, onIdle: (room: Room) => void): Promise<Room> {
@@ -206,6 +205,7 @@ export class Room {
       // Edits made elsewhere are described there: settle ours, and re-read before describing the next.
       if (this.describeUser !== null) this.flushDescribe();
       Y.applyUpdate(this.doc, bytes, CLUSTER_ORIGIN);
+      this.relay(bytes, null);
       this.snapshotStale = true;
       this.approxBytes += bytes.byteLength;
     } catch (e) {
@@ -261,6 +261,7 @@ export class Room {
       const missing = Y.encodeStateAsUpdate(stored.doc, Y.encodeStateVector(this.doc));
       if (this.describeUser !== null) this.flushDescribe();
       Y.applyUpdate(this.doc, missing, CLUSTER_ORIGIN);
+      this.relay(missing, null);
       this.snapshotStale = true;
     } finally {
       stored.doc.destroy();
@@ -329,7 +330,6 @@ export class Room {
     this.awareness.off('update', this.onAwarenessUpdate);
     if (this.awarenessTimer) clearTimeout(this.awarenessTimer);
     this.awareness.destroy();
-    this.doc.off('update', this.onDocUpdate);
     this.doc.destroy();
     this.state = 'closed';
     this.resolveClosed();
@@ -438,10 +438,17 @@ export class Room {
     for (const c of this.conns) c.send(msg);
   };
 
-  private readonly onDocUpdate = (update: Uint8Array, origin: unknown): void => {
+  /**
+   * Pass an update on to every socket but its sender's, as the bytes that were stored (or relayed by
+   * another process). The document has no 'update' listener, so Yjs never re-encodes a transaction.
+   * Updates are idempotent and commute, so peers may take the bytes as sent: what they already know is
+   * ignored, and what waits on a missing update waits there as it does here.
+   */
+  private relay(update: Uint8Array, sender: CollabConnection | null): void {
+    if (this.conns.size === 0 || (this.conns.size === 1 && sender !== null && this.conns.has(sender))) return;
     const msg = updateMessage(update);
-    for (const c of this.conns) if (c !== origin) c.send(msg);
-  };
+    for (const c of this.conns) if (c !== sender) c.send(msg);
+  }
 
   // ---- the write queue ----
 
@@ -531,7 +538,7 @@ export class Room {
     }
   }
 
-  /** Apply stored updates in order (each broadcast by the document's update handler) and describe them. */
+  /** Apply stored updates in order, pass each on to the other sockets (`relay`) and describe them. */
   private applyStored(batch: PendingWrite[], ids: number[]): void {
     for (let i = 0; i < batch.length; i++) {
       const w = batch[i];
@@ -542,6 +549,10 @@ export class Room {
         this.snapshotStale = false;
       }
       try {
+        // Stored, so it may go out before it is applied here: the others get it one apply sooner. These
+        // are the bytes every process and every later load applies; bytes that decode (checked on
+        // arrival) but do not apply are skipped the same way everywhere, and their sender is closed.
+        this.relay(w.update, w.conn);
         Y.applyUpdate(this.doc, w.update, w.conn ?? SERVER_ORIGIN);
         if (this.deps.cluster) {
           this.appliedLogIds.add(ids[i]);

@@ -204,3 +204,27 @@ describe('a tuner sending bad updates', () => {
     expect(Number(rows[0].n)).toBeLessThan(10);
   });
 });
+
+describe('what the other sockets receive', () => {
+  it("is exactly the bytes that were stored, and never the sender's own update back", async () => {
+    const sender = await connect(tuner);
+    const watcher = await connect(observer);
+    const base = sender.serverDoc();
+    const u = editUpdate(base, (d) => setElementField(d, 'c1', 'value', 3.3e-12));
+    const sentBefore = sender.received.length;
+    const seenBefore = watcher.received.length;
+    sender.send(updateMsg(u));
+    await until('the update to reach the observer', () => watcher.received.length > seenBefore);
+    // y-websocket's update message: type 0 (sync), step 2 (update), then the update bytes.
+    expect(Buffer.from(watcher.received[seenBefore])).toEqual(Buffer.from(updateMsg(u)));
+    const [last] = await world.server.knex('room_updates').where({ room_id: roomId }).orderBy('id', 'desc').limit(1).select('update');
+    expect(Buffer.from(last.update)).toEqual(Buffer.from(u));
+    expect(readElement(watcher.serverDoc(), 'c1')?.value).toBe(3.3e-12);
+    // A round trip on the sender's socket (its sync request is answered with step 2): no update came first.
+    sender.send(syncStep1(base));
+    await until('the sync answer', () => sender.received.slice(sentBefore).some((m) => m[0] === 0 && m[1] === 1));
+    expect(sender.received.slice(sentBefore).some((m) => m[0] === 0 && m[1] === 2)).toBe(false);
+    sender.close();
+    watcher.close();
+  });
+});
