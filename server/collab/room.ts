@@ -1,7 +1,8 @@
 /**
  * One loaded room: its Yjs document, the sockets in it and their awareness (cursor/selection presence),
  * and the write path. Every document update from a member who may edit goes through one queue per
- * room: checked, appended to `room_updates` (awaited), then applied and broadcast, in arrival order.
+ * room: checked, appended to `room_updates` (awaited), then relayed to the other sockets and applied, in
+ * arrival order.
  * Observers' reads are answered; their writes are dropped. The log is compacted into `room_states`
  * every `compactEvery` accepted updates and when the room unloads.
  */
@@ -455,7 +456,7 @@ export class Room {
   /**
    * Process the queue. With a synchronous writer (SQLite) the queued updates are stored at once, in
    * this turn of the event loop (one short transaction, no disk flush: WAL with synchronous=NORMAL),
-   * then applied and broadcast; otherwise (another database, or a busy moment) the queue drains
+   * then relayed and applied; otherwise (another database, or a busy moment) the queue drains
    * asynchronously, still in order.
    */
   private kick(): void {
