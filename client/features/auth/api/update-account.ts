@@ -10,10 +10,16 @@ export const updateAccount = async (patch: { notifyReviews: boolean }): Promise<
 
 export function useUpdateAccount(config: MutationConfig<typeof updateAccount> = {}) {
   const queryClient = useQueryClient();
-  const { onSuccess, ...rest } = config;
+  const { onMutate, onSuccess, ...rest } = config;
   return useMutation({
     ...rest,
     mutationFn: updateAccount,
+    onMutate: async (...args) => {
+      // A read of the account already on its way (the page asks afresh when it opens) answers with the
+      // settings from before this change; landing after it, it would put the old value back on screen.
+      await queryClient.cancelQueries({ queryKey: queryKeys.me });
+      return onMutate?.(...args);
+    },
     onSuccess: async (...args) => {
       queryClient.setQueryData(queryKeys.me, args[0]);
       await onSuccess?.(...args);
