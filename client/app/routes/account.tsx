@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Loading } from '../../components/page-status';
 import { meQueryOptions } from '../../features/auth/api/get-me';
 import { useUpdateAccount } from '../../features/auth/api/update-account';
@@ -16,8 +17,11 @@ export default function AccountRoute() {
         message: account.notifyReviews ? 'Review requests will be e-mailed to you.' : 'Review requests will no longer be e-mailed to you.',
       }),
   });
+  // The value being saved, set in the click itself: the box shows it at once (the mutation's own state
+  // reaches the screen a moment later), and the saved or restored value once the answer is in.
+  const [saving, setSaving] = useState<boolean | null>(null);
   if (!me || me.notifyReviews === undefined) return <Loading label="Loading your settings…" />;
-  const on = update.isPending ? update.variables.notifyReviews : me.notifyReviews;
+  const on = saving ?? me.notifyReviews;
   return (
     <div className="flex max-w-2xl flex-col gap-6">
       <header>
@@ -35,8 +39,12 @@ export default function AccountRoute() {
             type="checkbox"
             className="mt-1 size-4 accent-teal-deep"
             checked={on}
-            disabled={update.isPending}
-            onChange={(event) => update.mutate({ notifyReviews: event.target.checked })}
+            disabled={saving !== null}
+            onChange={(event) => {
+              const notifyReviews = event.target.checked;
+              setSaving(notifyReviews);
+              update.mutate({ notifyReviews }, { onSettled: () => setSaving(null) });
+            }}
           />
           <span>
             <span className="font-semibold">E-mail me when a snapshot in one of my rooms is marked for review</span>
