@@ -446,9 +446,8 @@ export class Room {
    * ignored, and what waits on a missing update waits there as it does here.
    */
   private relay(update: Uint8Array, sender: CollabConnection | null): void {
-    if (this.conns.size === 0 || (this.conns.size === 1 && sender !== null && this.conns.has(sender))) return;
-    const msg = updateMessage(update);
-    for (const c of this.conns) if (c !== sender) c.send(msg);
+    let msg: Uint8Array | null = null; // encoded once, and only if someone else is in the room
+    for (const c of this.conns) if (c !== sender) c.send((msg ??= updateMessage(update)));
   }
 
   // ---- the write queue ----
@@ -552,7 +551,8 @@ export class Room {
       try {
         // Stored, so it may go out before it is applied here: the others get it one apply sooner. These
         // are the bytes every process and every later load applies; bytes that decode (checked on
-        // arrival) but do not apply are skipped the same way everywhere, and their sender is closed.
+        // arrival) but fail to apply fail on the peers as they do here, are skipped at every later load,
+        // and their sender is closed (below).
         this.relay(w.update, w.conn);
         Y.applyUpdate(this.doc, w.update, w.conn ?? SERVER_ORIGIN);
         if (this.deps.cluster) {
